@@ -15,12 +15,13 @@ export default defineConfig({
   },
   env: {
     schema: {
-      DATA_DIR: envField.string({ context: 'server', access: 'public', default: './data' }),
+      // All read at run time (secret fields are not inlined into the build).
+      DATA_DIR: envField.string({ context: 'server', access: 'secret', default: './data' }),
       DATABASE_URL: envField.string({ context: 'server', access: 'secret', optional: true }),
-      RESETWISE_DEMO: envField.string({ context: 'server', access: 'public', default: '1' }),
-      PUBLIC_ORIGIN: envField.string({ context: 'server', access: 'public', optional: true }),
+      RESETWISE_DEMO: envField.enum({ context: 'server', access: 'secret', values: ['0', '1'], default: '1' }),
+      PUBLIC_ORIGIN: envField.string({ context: 'server', access: 'secret', optional: true }),
+      COOKIE_SECURE: envField.enum({ context: 'server', access: 'secret', values: ['auto', '0', '1'], default: 'auto' }),
     },
   },
   vite: { plugins: [tailwindcss()] },
-  telemetry: false,
 });

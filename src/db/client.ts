@@ -1,0 +1,59 @@
+import path from 'node:path';
+import { mkdirSync } from 'node:fs';
+import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import * as schema from './schema';
+
+export type Schema = typeof schema;
+/** The one database type the app uses, whichever driver is underneath. */
+export type Db = PgDatabase<PgQueryResultHKT, Schema>;
+
+export interface DatabaseOptions {
+  /** postgres:// URL of a PostgreSQL server; when set, PGlite is not used. */
+  databaseUrl?: string | undefined;
+  /** Folder for the embedded PGlite database; `memory://` for a throw-away one. */
+  dataDir?: string | undefined;
+  /** Folder with the drizzle-kit migrations (default `./drizzle` under the working directory). */
+  migrationsDir?: string | undefined;
+}
+
+export interface Database {
+  db: Db;
+  kind: 'pglite' | 'postgres';
+  close(): Promise<void>;
+}
+
+const defaultMigrationsDir = (): string => path.resolve(process.cwd(), 'drizzle');
+
+/**
+ * Opens the database and applies every pending migration before returning.
+ * PGlite serialises queries and transactions on its single connection itself, so one
+ * instance per process is safe for concurrent requests; never open a second one on the
+ * same folder from another process.
+ */
+export async function openDatabase(options: DatabaseOptions): Promise<Database> {
+  const migrationsFolder = options.migrationsDir ?? defaultMigrationsDir();
+  if (options.databaseUrl) {
+    const { default: pg } = await import('pg');
+    const { drizzle } = await import('drizzle-orm/node-postgres');
+    const { migrate } = await import('drizzle-orm/node-postgres/migrator');
+    const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
+    const db = drizzle(pool, { schema });
+    await migrate(db, { migrationsFolder });
+    return { db: db as unknown as Db, kind: 'postgres', close: () => pool.end() };
+  }
+  const { PGlite } = await import('@electric-sql/pglite');
+  const { drizzle } = await import('drizzle-orm/pglite');
+  const { migrate } = await import('drizzle-orm/pglite/migrator');
+  const dataDir = options.dataDir ?? './data';
+  let client: InstanceType<typeof PGlite>;
+  if (dataDir.startsWith('memory://')) {
+    client = await PGlite.create();
+  } else {
+    const dir = path.resolve(dataDir, 'pg');
+    mkdirSync(dir, { recursive: true });
+    client = await PGlite.create(dir);
+  }
+  const db = drizzle(client, { schema });
+  await migrate(db, { migrationsFolder });
+  return { db: db as unknown as Db, kind: 'pglite', close: () => client.close() };
+}

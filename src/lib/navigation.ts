@@ -1,0 +1,17 @@
+import { can, type Capability, type Role } from './roles';
+
+export interface NavItem {
+  href: string;
+  label: string;
+  capability: Capability;
+}
+
+/** Screens that exist; a screen is listed here only once it works. */
+export const NAV_ITEMS: NavItem[] = [
+  { href: '/', label: 'Overview', capability: 'readSpecs' },
+  { href: '/team', label: 'Team', capability: 'manageTeam' },
+];
+
+export function navFor(role: Role): NavItem[] {
+  return NAV_ITEMS.filter((item) => can(role, item.capability));
+}

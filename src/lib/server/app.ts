@@ -1,0 +1,31 @@
+import { openDatabase, type Db } from '../../db/client';
+import { seedDemo } from '../../db/seed';
+import { config } from './config';
+import { createAuth, type Auth } from './auth';
+import { hashPassword } from './password';
+import { createSignInThrottle, type SignInThrottle } from './throttle';
+
+export interface AppContext {
+  db: Db;
+  auth: Auth;
+  throttle: SignInThrottle;
+  demo: boolean;
+}
+
+let app: Promise<AppContext> | undefined;
+
+/**
+ * The process-wide app context: one database (migrated, and seeded in demo mode), one lucia
+ * instance, one throttle. The promise is cached so concurrent first requests share it.
+ */
+export function getApp(): Promise<AppContext> {
+  app ??= (async () => {
+    const { db } = await openDatabase({ databaseUrl: config.databaseUrl, dataDir: config.dataDir });
+    if (config.demo) await seedDemo(db, hashPassword);
+    return { db, auth: createAuth(db, { secureCookie: config.secureCookie }), throttle: createSignInThrottle(), demo: config.demo };
+  })().catch((error: unknown) => {
+    app = undefined; // let the next request retry instead of caching the failure
+    throw error;
+  });
+  return app;
+}
