@@ -87,13 +87,13 @@ export default function SignInForm({ next, demoLogins, demoPassword }: Props) {
           </p>
           <ul className="divide-y divide-line text-sm">
             {demoLogins.map((login) => (
-              <li key={login.email} className="flex items-center justify-between gap-2 py-1.5">
-                <span>
-                  <span className="font-medium">{login.roleLabel}</span>
-                  <span className="ml-2 text-muted">{login.email}</span>
+              <li key={login.email} className="flex items-center justify-between gap-3 py-1.5">
+                <span className="min-w-0">
+                  <span className="block font-medium">{login.roleLabel}</span>
+                  <span className="block truncate text-xs text-muted">{login.email}</span>
                 </span>
                 <button
-                  type="button" className="btn py-0.5 text-xs"
+                  type="button" className="btn shrink-0 py-0.5 text-xs"
                   onClick={() => { setEmail(login.email); setPassword(demoPassword); setProblem(null); }}
                   aria-label={`Fill in ${login.email}`}
                 >

@@ -1,0 +1,99 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { startServer, type RunningServer } from '../helpers/server';
+import { launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { demoAccounts } from '../../src/demo/accounts';
+
+let server: RunningServer;
+let browser: Browser;
+beforeAll(async () => {
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  [server, browser] = await Promise.all([startServer(), launchBrowser()]);
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+// What each role's header must list (DESIGN.md roles; screens that exist so far).
+const expectedNav: Record<string, string[]> = {
+  admin: ['Overview', 'Team'],
+  architect: ['Overview'],
+  engineer: ['Overview'],
+  sales: ['Overview'],
+};
+
+describe('signing in through the browser', () => {
+  it('the sign-in page lists the demo accounts and marks the workspace fictional', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await page.goto(`${server.url}/sign-in`);
+    await expect.poll(() => page.locator('[data-demo-notice]').textContent()).toMatch(/fictional/);
+    for (const account of demoAccounts) await page.getByText(account.email).waitFor();
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'sign-in.png'), fullPage: true });
+    await page.close();
+  });
+
+  it('shows a plain message for a wrong password', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel('E-mail').fill('architect@resetwise.example');
+    await page.getByLabel('Password').fill('not-the-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect.poll(() => page.getByRole('alert').textContent()).toMatch(/e-mail or password is wrong/);
+    await page.close();
+  });
+
+  const roles = [...new Map(demoAccounts.map((a) => [a.role, a])).values()];
+  it.each(roles.map((a) => [a.role, a.email] as const))('%s signs in and sees the right navigation', async (role, email) => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await context.newPage();
+    await page.goto(`${server.url}/team`);
+    await page.waitForURL(/\/sign-in\?next=%2Fteam/);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill('resetwise-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => url.pathname === '/team');
+    const nav = await page.getByRole('navigation', { name: 'Screens' }).getByRole('link').allTextContents();
+    expect(nav.map((t) => t.trim())).toEqual(expectedNav[role]);
+    await expect.poll(() => page.locator('[data-current-user] [data-role]').getAttribute('data-role')).toBe(role);
+    if (role === 'admin') {
+      await page.getByRole('heading', { name: 'Team' }).waitFor();
+      await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'team-admin.png'), fullPage: true });
+    } else {
+      await page.getByRole('heading', { name: 'Your role does not open this screen' }).waitFor();
+    }
+    await page.goto(`${server.url}/`);
+    await page.locator('[data-spec-table]').waitFor();
+    expect(await page.locator('[data-safety-caution]').count()).toBe(1);
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `overview-${role}.png`), fullPage: true });
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/sign-in\?signedOut=1/);
+    await page.goto(`${server.url}/`);
+    await page.waitForURL(/\/sign-in/);
+    await context.close();
+  });
+
+  it('an admin adds a member from the Team page by keyboard and mouse', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel('E-mail').fill('admin@resetwise.example');
+    await page.getByLabel('Password').fill('resetwise-demo');
+    await page.keyboard.press('Enter');
+    await page.waitForURL(`${server.url}/`);
+    await page.goto(`${server.url}/team`);
+    await page.getByLabel('Display name').fill('Rosa Lindqvist');
+    await page.getByLabel('E-mail').fill('not-an-email');
+    await page.getByLabel('Initial password (10+ characters)').fill('rosa-password-1');
+    await page.getByRole('button', { name: 'Add member' }).click();
+    await page.getByText('email must be an e-mail address').waitFor();
+    await page.getByLabel('E-mail').fill('rosa@halvard.example');
+    await page.getByLabel('Role', { exact: true }).selectOption('sales');
+    await page.getByRole('button', { name: 'Add member' }).click();
+    await page.locator('[data-member="rosa@halvard.example"]').waitFor();
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'team-added.png'), fullPage: true });
+    await context.close();
+  });
+});
