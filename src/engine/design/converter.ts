@@ -1,0 +1,82 @@
+import { CAP_TOLERANCE, RDS_HOT_FACTOR, WINDING_DROP_SHARE } from '../assumptions';
+import { snapUp } from '../eseries';
+import { capacitanceForRippleF, inductanceForRippleH, inductorRippleA } from '../filter';
+import type { MosfetPart, RectifierPart } from '../parts/types';
+import { selectCapacitor, selectInductor, selectMosfet, selectRectifier } from '../parts/select';
+import type { ResetSchemeModel } from '../schemes/types';
+import type { Design } from './types';
+
+/**
+ * Turns ratio from the lowest input at the duty limit: Vout + drops = n·D·Vin
+ * (volt-second balance on the output inductor with VF1 = VF2; derived, FORMULAS §1.0).
+ */
+export function turnsRatioFor(voutV: number, dropsV: number, dutyLimit: number, vinMinV: number): number {
+  if (!(dutyLimit > 0 && dutyLimit < 1)) throw new RangeError(`duty limit must be in (0, 1), got ${dutyLimit}`);
+  if (!(vinMinV > 0)) throw new RangeError(`vinMinV must be positive, got ${vinMinV}`);
+  return (voutV + dropsV) / (dutyLimit * vinMinV);
+}
+
+/** Duty at an input voltage: D = (Vout + drops)/(n·Vin) (same balance). */
+export function dutyAt(voutV: number, dropsV: number, turnsRatio: number, vinV: number): number {
+  return (voutV + dropsV) / (turnsRatio * vinV);
+}
+
+function rectifierDrop(d: Design): number {
+  if (d.rectSr) return (d.spec.ioutA * d.rectSr.rdsOnOhm * RDS_HOT_FACTOR) / d.rectQty;
+  return d.rectDiode ? d.rectDiode.vfV : 0.5;
+}
+
+/** Stage 1–2: duty limit, rectifier drop, turns ratio, volt-seconds K and the duty at three lines. */
+export function designConversion(d: Design, model: ResetSchemeModel): void {
+  const s = d.spec;
+  const ov = s.overrides[d.scheme];
+  d.resetDutyLimit = model.resetDutyLimit(s);
+  d.dutyLimit = ov?.dutyLimit ?? model.designDutyLimit(s);
+  if (d.dutyLimit > d.resetDutyLimit + 1e-12) d.fails.push('duty-limit-above-reset');
+  d.windingDropV = WINDING_DROP_SHARE * s.voutV;
+  const forced = ov?.partIds?.rectifier ? d.index.byId.get(ov.partIds.rectifier) : undefined;
+  for (let pass = 0; pass < 2; pass++) {
+    d.rectifierDropV = rectifierDrop(d);
+    d.dropsV = d.rectifierDropV + d.windingDropV;
+    d.turnsRatio = ov?.turnsRatio ?? turnsRatioFor(s.voutV, d.dropsV, d.dutyLimit, s.vinMinV);
+    d.kV = (s.voutV + d.dropsV) / d.turnsRatio;
+    model.prepare(d);
+    d.rectForwardV = d.turnsRatio * Math.max(model.resetVoltageV(d, s.vinMinV), model.resetVoltageV(d, s.vinMaxV));
+    d.rectFreewheelV = d.turnsRatio * s.vinMaxV;
+    const vr = Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating;
+    if (forced) {
+      if (s.rectifier === 'synchronous') d.rectSr = forced as MosfetPart; else d.rectDiode = forced as RectifierPart;
+      d.rectQty = 1;
+    } else if (s.rectifier === 'synchronous') {
+      const c = selectMosfet(d.index.srMosfets, vr, s.ioutA * Math.sqrt(Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV)), d.poutW, s.annualVolume);
+      d.rectSr = c ? c.part : null;
+      d.rectQty = c ? c.qty : 1;
+    } else {
+      const c = selectRectifier(d.index.rectifiers, vr, s.ioutA * Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV), s.annualVolume);
+      d.rectDiode = c ? c.part : null;
+      d.rectQty = c ? c.qty : 1;
+    }
+  }
+  if (!d.rectSr && !d.rectDiode) d.fails.push('no-rectifier');
+  d.dutyAtVinMin = d.kV / s.vinMinV;
+  d.dutyAtVinNom = d.kV / s.vinNomV;
+  d.dutyAtVinMax = d.kV / s.vinMaxV;
+  if (d.dutyAtVinMin > d.dutyLimit + 1e-9) d.fails.push('duty-cannot-reach-output');
+}
+
+/** Stage 3: output L for the ripple ratio (E12, snapped up) and C for the ripple voltage (E6, snapped up). */
+export function designFilter(d: Design): void {
+  const s = d.spec;
+  const voPlusDrop = s.voutV + d.dropsV;
+  const target = s.rippleRatio * s.ioutA;
+  d.outputInductanceH = snapUp(inductanceForRippleH(voPlusDrop, d.dutyAtVinMax, target, s.fswHz), 'E12');
+  d.rippleA = inductorRippleA(voPlusDrop, d.dutyAtVinMax, d.outputInductanceH, s.fswHz);
+  // Half the ripple budget to capacitance, half to ESR (common practice).
+  const cMin = capacitanceForRippleF(d.rippleA, s.fswHz, s.voutRippleV / 2);
+  d.outputCapacitanceF = snapUp(cMin / (1 - CAP_TOLERANCE), 'E6');
+  const bank = selectCapacitor(d.index.capacitors, s.voutV / s.voltageDerating, d.outputCapacitanceF, s.voutRippleV / 2 / d.rippleA, s.annualVolume);
+  if (bank) { d.outCap = bank.part; d.outCapQty = bank.qty; } else d.fails.push('no-output-capacitor');
+  const iPk = s.ioutA + d.rippleA / 2;
+  d.inductor = selectInductor(d.index.inductors, 0.5 * d.outputInductanceH * iPk * iPk);
+  if (!d.inductor) d.fails.push('no-output-inductor');
+}

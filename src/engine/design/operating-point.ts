@@ -1,0 +1,62 @@
+import {
+  BODY_DIODE_V, GATE_DRIVE_V, PLATEAU_CURRENT_SHARE, RDS_HOT_FACTOR, SR_DEAD_TIME_S, SWITCHING_CHARGE_SHARE,
+} from '../assumptions';
+import { inductorRippleA } from '../filter';
+import {
+  capacitiveLossW, conductionLossW, gateDriveLossW, overlapLossW, reverseRecoveryLossW, transitionTimeS,
+} from '../losses/semiconductor';
+import type { ResetSchemeModel } from '../schemes/types';
+import { copperLossW } from './magnetics';
+import type { Design, LossesW } from './types';
+
+/**
+ * Loss breakdown at an input voltage and load fraction (FORMULAS §4). Duty follows
+ * D = K/Vin; the inductor is assumed to stay in continuous conduction.
+ */
+export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadFraction: number): LossesW {
+  const s = d.spec;
+  const fs = s.fswHz;
+  const io = s.ioutA * loadFraction;
+  const duty = d.kV / vinV;
+  const ripple = inductorRippleA(s.voutV + d.dropsV, duty, d.outputInductanceH, fs);
+  const iL2 = io * io + (ripple * ripple) / 12;
+  const n = d.turnsRatio;
+  const im = d.magnetizingPeakA;
+  const ipPk = n * (io + ripple / 2) + im;
+  const irms = Math.sqrt(n * n * duty * iL2 + (im * im * duty) / 3);
+  const out: LossesW = { switchConduction: 0, switching: 0, gateDrive: 0, resetOrClamp: 0, rectifiers: 0, transformer: 0, inductor: 0, total: 0 };
+  const sw = d.mainSwitch;
+  const positions = model.seriesSwitches;
+  if (sw) {
+    const qty = d.mainQty;
+    out.switchConduction = positions * conductionLossW(irms, (sw.rdsOnOhm * RDS_HOT_FACTOR) / qty);
+    const drvPeak = (d.highSideDrivers > 0 ? d.index.drivers['bootstrap-high-side'] : d.index.drivers['low-side'])?.peakA ?? 2;
+    const tc = transitionTimeS(sw.qgC * qty, drvPeak, SWITCHING_CHARGE_SHARE, PLATEAU_CURRENT_SHARE);
+    const vOff = model.offStateV(d, vinV) / positions;
+    const vOn = model.turnOnV(d, vinV);
+    const ionA = Math.max(0, n * (io - ripple / 2));
+    out.switching = positions * (overlapLossW(vOff, ipPk, tc, fs) + overlapLossW(vOn, ionA, tc, fs)
+      + capacitiveLossW(sw.cossF * qty, vOn, fs));
+    out.gateDrive = positions * gateDriveLossW(sw.qgC * qty, GATE_DRIVE_V, fs);
+  }
+  if (d.auxSwitch) out.gateDrive += gateDriveLossW(d.auxSwitch.qgC, GATE_DRIVE_V, fs);
+  if (d.rectSr) {
+    const r = (d.rectSr.rdsOnOhm * RDS_HOT_FACTOR) / d.rectQty;
+    // Forward SR conducts for D, freewheel SR for 1 − D: together (Io² + ΔIL²/12)·R, plus body-diode dead time.
+    out.rectifiers = iL2 * r + BODY_DIODE_V * io * 2 * SR_DEAD_TIME_S * fs;
+    out.gateDrive += 2 * gateDriveLossW(d.rectSr.qgC * d.rectQty, GATE_DRIVE_V, fs);
+  } else if (d.rectDiode) {
+    // D1 carries D·Io, D2 (1 − D)·Io: together VF·Io; recovery at the reverse voltages.
+    out.rectifiers = d.rectDiode.vfV * io + reverseRecoveryLossW(d.rectDiode.qrrC * d.rectQty, d.rectForwardV + n * vinV, fs);
+  }
+  out.resetOrClamp = model.resetLossW(d, vinV, duty, ipPk, irms);
+  out.transformer = d.coreLossW + copperLossW(d, duty, io, ripple);
+  out.inductor = d.inductor ? iL2 * d.inductor.dcrOhmPerH * d.outputInductanceH : 0;
+  out.total = out.switchConduction + out.switching + out.gateDrive + out.resetOrClamp + out.rectifiers + out.transformer + out.inductor;
+  return out;
+}
+
+/** Efficiency from output power and losses, η = Pout/(Pout + ΣP) (definition). */
+export function efficiencyOf(poutW: number, lossW: number): number {
+  return poutW / (poutW + lossW);
+}

@@ -1,0 +1,88 @@
+import { SPIKE_FRACTION, WINDING_CAPACITANCE_F } from '../assumptions';
+import type { MosfetPart } from '../parts/types';
+import { selectCapacitor, selectMosfet, selectRectifier, selectResistor } from '../parts/select';
+import type { ResetSchemeModel } from '../schemes/types';
+import type { Design } from './types';
+
+/**
+ * Worst steady off-state voltage over the range. Every scheme's Vds(Vin) is monotonic or convex
+ * (active clamp: U-shaped), so the worst case sits at one end of the range (derived).
+ */
+export function peakOffStateV(d: Design, model: ResetSchemeModel): number {
+  return Math.max(model.offStateV(d, d.spec.vinMinV), model.offStateV(d, d.spec.vinMaxV));
+}
+
+/**
+ * Unclamped leakage spike Vspike ≈ Ip·√(Llk/C) (energy ½·Llk·Ip² into the node capacitance;
+ * derived, FORMULAS §9 item 1).
+ */
+export function leakageSpikeV(primaryPeakA: number, llkH: number, nodeCapF: number): number {
+  if (!(nodeCapF > 0)) throw new RangeError(`node capacitance must be positive, got ${nodeCapF} F`);
+  return primaryPeakA * Math.sqrt(llkH / nodeCapF);
+}
+
+/** Primary peak and rms current at Vin,min, full load (reflected load + magnetizing; derived, FORMULAS §1.0). */
+export function designCurrents(d: Design): void {
+  const s = d.spec;
+  const duty = d.dutyAtVinMin;
+  d.primaryPeakA = d.turnsRatio * (s.ioutA + d.rippleA / 2) + d.magnetizingPeakA;
+  const load = d.turnsRatio * d.turnsRatio * duty * (s.ioutA * s.ioutA + (d.rippleA * d.rippleA) / 12);
+  // Magnetizing ramp during the on time (0→Im,pk or −Im,pk→+Im,pk): rms² = Im,pk²·D/3.
+  const mag = (d.magnetizingPeakA * d.magnetizingPeakA * duty) / 3;
+  d.primaryRmsA = Math.sqrt(load + mag);
+}
+
+/**
+ * Stage 5: switch peak, transient, spike allowance (snubber-limited to 10 % where nothing clamps
+ * the leakage), design stress, and the cheapest main switch rated ≥ stress/derating.
+ */
+export function designStress(d: Design, model: ResetSchemeModel): void {
+  const s = d.spec;
+  d.switchPeakV = peakOffStateV(d, model);
+  d.transientV = Math.max(model.transientV(d), d.switchPeakV);
+  const base = Math.max(d.switchPeakV * (1 + model.clampAllowance), d.transientV);
+  const forcedId = s.overrides[d.scheme]?.partIds?.mainSwitch;
+  const pick = (minV: number): void => {
+    if (forcedId) {
+      const m = d.index.byId.get(forcedId) as MosfetPart | undefined;
+      if (!m || !('vdsV' in m)) { d.mainSwitch = null; return; }
+      d.mainSwitch = m;
+      d.mainQty = 1;
+      return;
+    }
+    const c = selectMosfet(d.index.nMosfets, minV, d.primaryRmsA, d.poutW, s.annualVolume);
+    d.mainSwitch = c ? c.part : null;
+    d.mainQty = c ? c.qty : 1;
+  };
+  d.spikeV = 0;
+  d.snubberNeeded = false;
+  if (!model.leakageClamped) {
+    pick((base + SPIKE_FRACTION * d.switchPeakV) / s.voltageDerating);
+    const cNode = (d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0) + WINDING_CAPACITANCE_F + (d.addedCF > 0 ? d.addedCF : 0);
+    const raw = leakageSpikeV(d.primaryPeakA, d.llkH, cNode);
+    d.snubberNeeded = raw > SPIKE_FRACTION * d.switchPeakV;
+    d.spikeV = Math.min(raw, SPIKE_FRACTION * d.switchPeakV);
+    if (d.snubberNeeded) {
+      // Cs so that Ip·√(Llk/(Cnode + Cs)) = 10 % of the peak (derived).
+      const vMax = SPIKE_FRACTION * d.switchPeakV;
+      d.snubberCapF = Math.max(0, d.llkH * (d.primaryPeakA / vMax) ** 2 - cNode);
+    }
+  }
+  d.switchStressV = base + d.spikeV;
+  pick(d.switchStressV / s.voltageDerating);
+  if (!d.mainSwitch) { d.fails.push(forcedId ? 'unknown-part' : 'no-switch-for-stress'); d.switchRatingV = NaN; return; }
+  d.switchRatingV = d.mainSwitch.vdsV;
+  if (d.switchRatingV * s.voltageDerating < d.switchStressV * (1 - 1e-9)) d.fails.push('no-switch-for-stress');
+}
+
+/** Snubber (diode + R + C) parts for an unclamped scheme whose leakage spike needs limiting. */
+export function designSnubber(d: Design): void {
+  if (!d.snubberNeeded) return;
+  const s = d.spec;
+  const vR = d.switchStressV;
+  const pW = 0.5 * d.llkH * d.primaryPeakA * d.primaryPeakA * s.fswHz;
+  d.snubberDiode = selectRectifier(d.index.clampDiodes, vR / s.voltageDerating, pW / Math.max(d.switchPeakV, 1), s.annualVolume)?.part ?? null;
+  d.snubberCap = selectCapacitor(d.index.capacitors, vR / s.voltageDerating, d.snubberCapF, Infinity, s.annualVolume)?.part ?? null;
+  d.snubberRes = selectResistor(d.index.resistors, pW, vR);
+  if (!d.snubberDiode || !d.snubberCap || !d.snubberRes) d.fails.push('no-clamp-part');
+}

@@ -1,0 +1,114 @@
+import type { NormalisedSpec } from '../../schemas/spec';
+import type { LibraryIndex } from '../parts/index-library';
+import type { CapacitorPart, CorePart, InductorPart, MosfetPart, RectifierPart, ResistorPart } from '../parts/types';
+import type { SchemeId } from '../scheme-ids';
+
+/** Failure codes the lean path can raise (findings text is added in the full path). */
+export type FailCode =
+  | 'duty-limit-above-reset' | 'duty-cannot-reach-output' | 'no-switch-for-stress' | 'no-aux-switch'
+  | 'no-rectifier' | 'no-core' | 'windings-do-not-fit' | 'flux-above-saturation' | 'resonant-reset-incomplete'
+  | 'no-output-capacitor' | 'no-output-inductor' | 'no-clamp-part' | 'unknown-part';
+
+/** Loss breakdown in watts (contract field names). */
+export interface LossesW {
+  switchConduction: number;
+  switching: number;
+  gateDrive: number;
+  resetOrClamp: number;
+  rectifiers: number;
+  transformer: number;
+  inductor: number;
+  total: number;
+}
+
+/**
+ * The working record of one scheme evaluation: filled stage by stage by the lean pipeline,
+ * read by findings, trace, waveforms and the full result. All numbers SI.
+ */
+export interface Design {
+  scheme: SchemeId;
+  spec: NormalisedSpec;
+  index: LibraryIndex;
+  poutW: number;
+  fails: FailCode[];
+  // duty and turns
+  resetDutyLimit: number;
+  dutyLimit: number;
+  /** Duty the controller can reach in a high-line transient (volt-second clamped schemes: steady value). */
+  transientDuty: number;
+  resetTurnsRatio: number;
+  rectifierDropV: number;
+  windingDropV: number;
+  dropsV: number;
+  turnsRatio: number;
+  /** Volt-seconds per switching period times fs: K = Vin·D (constant over line in regulation). */
+  kV: number;
+  dutyAtVinMin: number;
+  dutyAtVinNom: number;
+  dutyAtVinMax: number;
+  // output filter
+  rippleA: number;
+  outputInductanceH: number;
+  outputCapacitanceF: number;
+  inductor: InductorPart | null;
+  outCap: CapacitorPart | null;
+  outCapQty: number;
+  // rectifiers
+  rectForwardV: number;
+  rectFreewheelV: number;
+  rectDiode: RectifierPart | null;
+  rectSr: MosfetPart | null;
+  rectQty: number;
+  // magnetics
+  core: CorePart | null;
+  turnsPrimary: number;
+  deltaBT: number;
+  bTransientT: number;
+  bAvailableT: number;
+  lmH: number;
+  llkH: number;
+  magnetizingPeakA: number;
+  windowFill: number;
+  skinDepthM: number;
+  strandAwg: number;
+  coreLossW: number;
+  // currents at vinMin, full load
+  primaryPeakA: number;
+  primaryRmsA: number;
+  // reset network (scheme specific, NaN when unused)
+  clampV: number;
+  resonantPeakV: number;
+  resonantCF: number;
+  addedCF: number;
+  clampResOhm: number;
+  clampCapF: number;
+  // stress and switches
+  switchPeakV: number;
+  transientV: number;
+  spikeV: number;
+  snubberNeeded: boolean;
+  switchStressV: number;
+  switchRatingV: number;
+  mainSwitch: MosfetPart | null;
+  mainQty: number;
+  auxSwitch: MosfetPart | null;
+  auxRmsA: number;
+  clampDiode: RectifierPart | null;
+  clampDiodeQty: number;
+  clampCap: CapacitorPart | null;
+  clampCapQty: number;
+  clampRes: ResistorPart | null;
+  snubberDiode: RectifierPart | null;
+  snubberCap: CapacitorPart | null;
+  snubberCapF: number;
+  snubberRes: ResistorPart | null;
+  lowSideDrivers: number;
+  highSideDrivers: number;
+  // totals at nominal input, full load
+  lossesW: LossesW;
+  efficiency: number;
+  bomCost: number;
+  partCount: number;
+  feasible: boolean;
+  score: number;
+}

@@ -1,0 +1,97 @@
+import { parseSpecInput, type NormalisedSpec, type SpecError } from '../schemas/spec';
+import { visitParts } from './design/bom';
+import { efficiencyOf, lossesAt } from './design/operating-point';
+import { designScheme } from './design/pipeline';
+import type { Design } from './design/types';
+import { findingsOf } from './feasibility';
+import { indexLibrary, unitPriceAt } from './parts/index-library';
+import { demoPartsLibrary } from './parts/demo-library';
+import type { PartsLibrary } from './parts/types';
+import { schemeModel } from './registry';
+import type { BomLine, Comparison, LeanResult, SchemeResult } from './result-types';
+import type { SchemeId } from './scheme-ids';
+import { traceOf } from './trace';
+import { ENGINE_VERSION } from './version';
+
+/** Thrown by `evaluate` for an invalid requirement set; `errors` name each field and reason. */
+export class SpecValidationError extends RangeError {
+  readonly errors: SpecError[];
+  constructor(errors: SpecError[]) {
+    super(errors.map((e) => e.message).join('; '));
+    this.name = 'SpecValidationError';
+    this.errors = errors;
+  }
+}
+
+const nullIfNaN = (x: number): number | null => (Number.isFinite(x) ? x : null);
+const LOAD_STEPS = [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1];
+
+/** Full per-scheme result from a lean design: adds findings, BOM lines, efficiency vs load and trace. */
+export function resultOf(d: Design): SchemeResult {
+  const model = schemeModel(d.scheme);
+  const parts: BomLine[] = [];
+  visitParts(d, model, (role, part, qty) => parts.push({ role, partId: part.id, qty, unitPrice: unitPriceAt(part.tiers, d.spec.annualVolume) }));
+  const efficiencyVsLoad = d.core
+    ? LOAD_STEPS.map((loadFraction) => ({ loadFraction, efficiency: efficiencyOf(d.poutW * loadFraction, lossesAt(d, model, d.spec.vinNomV, loadFraction).total) }))
+    : [];
+  return {
+    scheme: d.scheme, label: model.label, feasible: d.feasible, findings: findingsOf(d, model),
+    turnsRatio: d.turnsRatio, resetTurnsRatio: d.scheme === 'tertiary-winding' ? d.resetTurnsRatio : null,
+    dutyLimit: d.dutyLimit, duty: { atVinMin: d.dutyAtVinMin, atVinNom: d.dutyAtVinNom, atVinMax: d.dutyAtVinMax },
+    switchCount: model.switchCount, switchPeakV: d.switchPeakV, switchStressV: d.switchStressV, switchRatingV: nullIfNaN(d.switchRatingV),
+    rectifierReverseV: { forward: d.rectForwardV, freewheel: d.rectFreewheelV },
+    clampCapacitorV: nullIfNaN(d.clampV),
+    magnetizingPeakA: d.magnetizingPeakA, primaryRmsA: d.primaryRmsA,
+    outputInductanceH: d.outputInductanceH, outputCapacitanceF: d.outputCapacitanceF,
+    core: { partId: d.core?.id ?? null, turnsPrimary: d.turnsPrimary, deltaBT: d.deltaBT, coreLossW: d.coreLossW },
+    lossesW: d.lossesW, efficiency: d.efficiency, efficiencyVsLoad,
+    partCount: d.partCount, parts, bomCost: d.bomCost, currency: d.index.library.currency, score: d.score,
+    details: {
+      voltSecondsV: d.kV, dropsV: d.dropsV, resetDutyLimit: d.resetDutyLimit, transientSwitchV: d.transientV,
+      leakageSpikeV: d.spikeV, primaryPeakA: d.primaryPeakA, inductorRippleA: d.rippleA,
+      magnetizingInductanceH: d.lmH, leakageInductanceH: d.llkH, transientFluxSwingT: d.bTransientT,
+      availableFluxSwingT: d.bAvailableT, windowFill: d.windowFill, skinDepthM: d.skinDepthM, strandAwg: d.strandAwg,
+      resonantPeakV: nullIfNaN(d.resonantPeakV), resonantCapacitanceF: nullIfNaN(d.resonantCF),
+      clampResistorOhm: nullIfNaN(d.clampResOhm), clampCapacitanceF: nullIfNaN(d.clampCapF),
+      mainSwitchId: d.mainSwitch?.id ?? null, mainSwitchParallel: d.mainQty, rectifierId: (d.rectSr ?? d.rectDiode)?.id ?? null,
+    },
+    trace: traceOf(d, model),
+  };
+}
+
+/** Ranking: feasible first, then by score descending, then by the scheme order. */
+export function rankResults(results: { scheme: SchemeId; feasible: boolean; score: number }[]): SchemeId[] {
+  return [...results].sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score - a.score).map((r) => r.scheme);
+}
+
+/** Evaluate a normalised spec (no validation; the fast path for trusted callers). */
+export function evaluateNormalised(spec: NormalisedSpec, library: PartsLibrary = demoPartsLibrary): Comparison {
+  const index = indexLibrary(library);
+  const results = spec.schemes.map((id) => resultOf(designScheme(spec, id, index)));
+  return {
+    engineVersion: ENGINE_VERSION, input: spec, results, ranking: rankResults(results),
+    partsLibrary: { name: library.name, version: library.version, currency: library.currency, demo: library.demo === true },
+  };
+}
+
+/**
+ * Evaluate a requirement set for every requested reset scheme. Raw input is validated with the
+ * shared schema; invalid input throws SpecValidationError (a RangeError) listing each problem.
+ */
+export function evaluate(input: unknown, library: PartsLibrary = demoPartsLibrary): Comparison {
+  const parsed = parseSpecInput(input);
+  if (!parsed.ok) throw new SpecValidationError(parsed.errors);
+  return evaluateNormalised(parsed.value, library);
+}
+
+/** Lean evaluation of one scheme (numbers only; no findings text, waveforms or load sweep). */
+export function evaluateLean(spec: NormalisedSpec, scheme: SchemeId, library: PartsLibrary = demoPartsLibrary): LeanResult {
+  const d = designScheme(spec, scheme, indexLibrary(library));
+  return {
+    scheme, feasible: d.feasible, turnsRatio: d.turnsRatio, dutyLimit: d.dutyLimit,
+    dutyAtVinMin: d.dutyAtVinMin, dutyAtVinMax: d.dutyAtVinMax, switchPeakV: d.switchPeakV,
+    switchStressV: d.switchStressV, switchRatingV: d.switchRatingV, rectifierForwardV: d.rectForwardV,
+    rectifierFreewheelV: d.rectFreewheelV, lossW: d.lossesW.total, efficiency: d.efficiency,
+    bomCost: d.bomCost, partCount: d.partCount, score: d.score,
+  };
+}

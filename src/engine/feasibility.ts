@@ -1,0 +1,75 @@
+import { MIN_ON_TIME_S, SMALL_MARGIN_SHARE } from './assumptions';
+import type { Design, FailCode } from './design/types';
+import type { ResetSchemeModel } from './schemes/types';
+
+/** One finding on a scheme: `fail` makes it infeasible; `warn` is a near-limit; `info` a note. */
+export interface Finding {
+  severity: 'fail' | 'warn' | 'info';
+  code: string;
+  message: string;
+}
+
+const f1 = (x: number): string => (Number.isFinite(x) ? x.toFixed(1) : String(x));
+const f3 = (x: number): string => (Number.isFinite(x) ? x.toFixed(3) : String(x));
+const pct = (x: number): string => `${(100 * x).toFixed(1)} %`;
+
+function failMessage(code: FailCode, d: Design): string {
+  const s = d.spec;
+  switch (code) {
+    case 'duty-limit-above-reset': return `duty limit ${f3(d.dutyLimit)} is above the reset limit ${f3(d.resetDutyLimit)}: the core would not reset and walks into saturation`;
+    case 'duty-cannot-reach-output': return `at ${s.vinMinV} V the output needs duty ${f3(d.dutyAtVinMin)}, above the limit ${f3(d.dutyLimit)}: raise the turns ratio or the input minimum`;
+    case 'no-switch-for-stress': return `no MOSFET in the library is rated for ${f1(d.switchStressV)} V stress at ${pct(s.voltageDerating)} derating (needs ${f1(d.switchStressV / s.voltageDerating)} V)`;
+    case 'no-aux-switch': return `no ${s.activeClampVariant === 'low-side' ? 'P-channel' : 'N-channel'} clamp switch in the library is rated for ${f1(d.switchStressV / s.voltageDerating)} V`;
+    case 'no-rectifier': return `no ${s.rectifier === 'synchronous' ? 'synchronous-rectifier MOSFET' : 'rectifier'} in the library blocks ${f1(Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating)} V at ${f1(s.ioutA)} A`;
+    case 'no-core': return 'no core in the library has the area product this design needs';
+    case 'windings-do-not-fit': return `the windings need ${pct(d.windowFill)} of the usable window of ${d.core?.id ?? 'the core'}`;
+    case 'flux-above-saturation': return `a high-line transient drives the flux swing to ${f3(d.bTransientT)} T, above the available ${f3(d.bAvailableT)} T: the core saturates`;
+    case 'resonant-reset-incomplete': return `with Coss and winding capacitance alone (${f1(d.resonantCF * 1e12)} pF) the resonant half-period limits duty to ${f3(d.resetDutyLimit)}, below the ${f3(d.dutyAtVinMin)} needed`;
+    case 'no-output-capacitor': return `no output capacitor bank in the library reaches ${f1(d.outputCapacitanceF * 1e6)} µF at the ESR needed`;
+    case 'no-output-inductor': return 'no output-inductor family in the library stores the energy needed';
+    case 'no-clamp-part': return `no clamp or snubber part in the library takes the voltage or power (${f1(d.lossesW.resetOrClamp)} W) of the reset network`;
+    case 'unknown-part': return 'an override names a part id that is not in the library or not of the right kind';
+  }
+}
+
+/**
+ * Findings of one design: every failed limit as `fail`, near-limits as `warn`, scheme notes as
+ * `info` (DESIGN.md "The computation" step 9).
+ */
+export function findingsOf(d: Design, model: ResetSchemeModel): Finding[] {
+  const s = d.spec;
+  const out: Finding[] = [...new Set(d.fails)].map((code) => ({ severity: 'fail' as const, code, message: failMessage(code, d) }));
+  if (s.targetEfficiency !== null && d.efficiency < s.targetEfficiency) {
+    out.push({ severity: 'warn', code: 'efficiency-below-target', message: `efficiency ${pct(d.efficiency)} at ${s.vinNomV} V, full load is under the ${pct(s.targetEfficiency)} target` });
+  }
+  if (s.targetUnitCost !== null && d.bomCost > s.targetUnitCost) {
+    out.push({ severity: 'warn', code: 'cost-above-target', message: `power-stage BOM ${d.bomCost.toFixed(2)} ${d.index.library.currency} at ${s.annualVolume} pcs/year is over the ${s.targetUnitCost} target` });
+  }
+  if (Number.isFinite(d.switchRatingV) && d.switchStressV > SMALL_MARGIN_SHARE * s.voltageDerating * d.switchRatingV) {
+    out.push({ severity: 'warn', code: 'small-voltage-margin', message: `switch stress ${f1(d.switchStressV)} V uses ${pct(d.switchStressV / (s.voltageDerating * d.switchRatingV))} of the derated ${d.switchRatingV} V rating` });
+  }
+  if (d.bTransientT > 0.95 * d.bAvailableT && d.bTransientT <= d.bAvailableT) {
+    out.push({ severity: 'warn', code: 'small-flux-margin', message: `transient flux swing ${f3(d.bTransientT)} T is within 5 % of the available ${f3(d.bAvailableT)} T` });
+  }
+  if (d.windowFill > 0.9 && d.windowFill <= 1) {
+    out.push({ severity: 'warn', code: 'window-nearly-full', message: `windings fill ${pct(d.windowFill)} of the usable window` });
+  }
+  const tOnMinS = d.dutyAtVinMax / s.fswHz;
+  if (tOnMinS < MIN_ON_TIME_S) out.push({ severity: 'warn', code: 'short-on-time', message: `on-time at ${s.vinMaxV} V is ${f1(tOnMinS * 1e9)} ns, near a controller's minimum` });
+  if (d.rippleA / 2 > 0.1 * s.ioutA) {
+    out.push({ severity: 'info', code: 'dcm-at-light-load', message: `the output inductor enters discontinuous conduction below ${pct(d.rippleA / 2 / s.ioutA)} load at ${s.vinMaxV} V` });
+  }
+  if (!model.leakageClamped) {
+    out.push({ severity: 'info', code: 'unclamped-leakage', message: `nothing clamps the leakage: ${d.snubberNeeded ? 'a snubber holds' : 'the node capacitance holds'} the spike to ${f1(d.spikeV)} V and dissipates ½·Llk·Ip²·fs` });
+  }
+  if (model.transientDuty(d) >= d.dutyLimit - 1e-9 && d.transientV > d.switchPeakV * 1.001) {
+    out.push({ severity: 'info', code: 'high-line-transient', message: `if duty reaches ${f3(d.dutyLimit)} at ${s.vinMaxV} V before the loop settles, the switch sees ${f1(d.transientV)} V; the rating covers it` });
+  }
+  if (d.scheme === 'active-clamp') {
+    out.push({ severity: 'info', code: 'volt-second-clamp', message: 'assumes a line feed-forward (volt-second) duty clamp; without it a high-line transient overstresses the switch and walks the core' });
+  }
+  if (d.scheme === 'tertiary-winding' && s.vinMaxV > 100) {
+    out.push({ severity: 'info', code: 'bifilar-insulation', message: `a bifilar primary/reset winding sees ${f1(s.vinMaxV * (1 + 1 / s.resetTurnsRatio))} V between adjacent turns; check insulation` });
+  }
+  return out;
+}

@@ -1,0 +1,96 @@
+import type {
+  CapacitorPart, CorePart, GateDriverPart, InductorPart, MosfetPart, PartsLibrary, PriceTier,
+  RectifierPart, ResistorPart,
+} from './types';
+
+/**
+ * A parts library pre-indexed once for fast selection: each category sorted by its key rating,
+ * parts marked `nfnd` left out of automatic choice, ids in one map for overrides.
+ */
+export interface LibraryIndex {
+  library: PartsLibrary;
+  nMosfets: MosfetPart[];
+  pMosfets: MosfetPart[];
+  srMosfets: MosfetPart[];
+  rectifiers: RectifierPart[];
+  clampDiodes: RectifierPart[];
+  coresByAp: CorePart[];
+  coreApM4: Float64Array;
+  capacitors: CapacitorPart[];
+  resistors: ResistorPart[];
+  inductors: InductorPart[];
+  drivers: Record<GateDriverPart['kind'], GateDriverPart | undefined>;
+  byId: Map<string, unknown>;
+}
+
+const cache = new WeakMap<PartsLibrary, LibraryIndex>();
+
+function usable<T extends { status: string }>(parts: T[]): T[] {
+  return parts.filter((p) => p.status !== 'nfnd');
+}
+
+function cheapestDriver(parts: GateDriverPart[], kind: GateDriverPart['kind']): GateDriverPart | undefined {
+  const ofKind = usable(parts).filter((d) => d.kind === kind);
+  ofKind.sort((a, b) => (a.tiers[0]?.unitPrice ?? 0) - (b.tiers[0]?.unitPrice ?? 0));
+  return ofKind[0];
+}
+
+/** Build (or fetch from cache) the index of a library. The library must not be mutated afterwards. */
+export function indexLibrary(library: PartsLibrary): LibraryIndex {
+  const hit = cache.get(library);
+  if (hit) return hit;
+  const byV = (a: MosfetPart, b: MosfetPart): number => a.vdsV - b.vdsV;
+  const byVrrm = (a: RectifierPart, b: RectifierPart): number => a.vrrmV - b.vrrmV || a.ifA - b.ifA;
+  const coresByAp = usable(library.cores).sort((a, b) => a.aeM2 * a.waM2 - b.aeM2 * b.waM2);
+  const byId = new Map<string, unknown>();
+  for (const list of [library.mosfets, library.srMosfets, library.rectifiers, library.clampDiodes,
+    library.gateDrivers, library.cores, library.capacitors, library.resistors, library.inductors]) {
+    for (const p of list) byId.set(p.id, p);
+  }
+  const index: LibraryIndex = {
+    library,
+    nMosfets: usable(library.mosfets).filter((m) => m.channel === 'n').sort(byV),
+    pMosfets: usable(library.mosfets).filter((m) => m.channel === 'p').sort(byV),
+    srMosfets: usable(library.srMosfets).sort(byV),
+    rectifiers: usable(library.rectifiers).sort(byVrrm),
+    clampDiodes: usable(library.clampDiodes).sort(byVrrm),
+    coresByAp,
+    coreApM4: Float64Array.from(coresByAp, (c) => c.aeM2 * c.waM2),
+    capacitors: usable(library.capacitors).sort((a, b) => a.voltageV - b.voltageV),
+    resistors: usable(library.resistors).sort((a, b) => a.powerW - b.powerW),
+    inductors: usable(library.inductors).sort((a, b) => a.energyJ - b.energyJ),
+    drivers: {
+      'low-side': cheapestDriver(library.gateDrivers, 'low-side'),
+      'bootstrap-high-side': cheapestDriver(library.gateDrivers, 'bootstrap-high-side'),
+      isolated: cheapestDriver(library.gateDrivers, 'isolated'),
+    },
+    byId,
+  };
+  cache.set(library, index);
+  return index;
+}
+
+/**
+ * Unit price at an annual volume: the tier with the largest `minQty` not above the volume
+ * (volume below every tier → the smallest tier). Common practice for distributor price breaks.
+ */
+export function unitPriceAt(tiersList: PriceTier[], annualVolume: number): number {
+  let price = tiersList[0]?.unitPrice ?? 0;
+  let best = -1;
+  for (let i = 0; i < tiersList.length; i++) {
+    const t = tiersList[i]!;
+    if (t.minQty <= annualVolume && t.minQty > best) { best = t.minQty; price = t.unitPrice; }
+  }
+  return price;
+}
+
+/** First index in an ascending list whose key is ≥ `min` (binary search); `list.length` if none. */
+export function lowerBound<T>(list: readonly T[], min: number, key: (item: T) => number): number {
+  let lo = 0;
+  let hi = list.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (key(list[mid]!) < min) lo = mid + 1; else hi = mid;
+  }
+  return lo;
+}

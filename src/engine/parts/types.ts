@@ -1,0 +1,122 @@
+/**
+ * Parts-library shape shared by the engine, the database import and CSV mapping.
+ * Plain JSON-serialisable records; all values in SI units (V, A, Ω, C, F, m, m², m³, H, J).
+ */
+
+/** Unit price that applies from `minQty` pieces per year upwards. */
+export interface PriceTier {
+  minQty: number;
+  unitPrice: number;
+}
+
+/** Approval status of a part: `nfnd` = not for new designs (never picked automatically). */
+export type PartStatus = 'preferred' | 'allowed' | 'nfnd';
+
+interface PartBase {
+  id: string;
+  description?: string;
+  status: PartStatus;
+  tiers: PriceTier[];
+}
+
+/** Power MOSFET (primary switch, clamp switch or synchronous rectifier). */
+export interface MosfetPart extends PartBase {
+  channel: 'n' | 'p';
+  vdsV: number;
+  /** Continuous drain current rating at 25 °C case. */
+  idA: number;
+  /** On-resistance at 25 °C junction. */
+  rdsOnOhm: number;
+  /** Total gate charge at the drive voltage. */
+  qgC: number;
+  /** Energy-related output capacitance Co(er). */
+  cossF: number;
+}
+
+/** Schottky or ultrafast rectifier (also used for clamp and reset diodes). */
+export interface RectifierPart extends PartBase {
+  kind: 'schottky' | 'ultrafast';
+  vrrmV: number;
+  ifA: number;
+  vfV: number;
+  /** Reverse-recovery charge (≈ 0 for Schottky; junction charge neglected). */
+  qrrC: number;
+}
+
+/** Gate driver; `peakA` is the source/sink peak current. */
+export interface GateDriverPart extends PartBase {
+  kind: 'low-side' | 'bootstrap-high-side' | 'isolated';
+  peakA: number;
+}
+
+/** IEC ferrite core shape families used in the library. */
+export type CoreShapeFamily = 'E' | 'EFD' | 'ETD' | 'PQ' | 'RM' | 'EQ';
+
+/** Ferrite core set (pair) with effective parameters and a generic power-ferrite Steinmetz fit. */
+export interface CorePart extends PartBase {
+  shapeFamily: CoreShapeFamily;
+  size: string;
+  aeM2: number;
+  leM: number;
+  veM3: number;
+  /** Winding (bobbin) window area. */
+  waM2: number;
+  /** Mean length of a turn. */
+  mltM: number;
+  /** Inductance factor of the ungapped set, H per turn². */
+  alH: number;
+  /** Steinmetz fit Pv = k·f^α·B̂^β in W/m³ with f in Hz and B̂ in T. */
+  steinmetzK: number;
+  steinmetzAlpha: number;
+  steinmetzBeta: number;
+  /** Saturation flux density at 100 °C. */
+  bsatT: number;
+  /** Remanent flux density at 100 °C. */
+  brT: number;
+}
+
+/** Capacitor (output filter, clamp or resonant capacitor). */
+export interface CapacitorPart extends PartBase {
+  dielectric: 'ceramic' | 'polymer' | 'film' | 'electrolytic';
+  capacitanceF: number;
+  voltageV: number;
+  esrOhm: number;
+}
+
+/** Resistor family: the value is chosen from an E-series; the part fixes the power rating. */
+export interface ResistorPart extends PartBase {
+  powerW: number;
+  voltageV: number;
+}
+
+/**
+ * Output-inductor core family wound to the value needed: stores at most `energyJ` (½·L·I²)
+ * and its winding resistance scales with inductance, `dcrOhmPerH` (R = dcrOhmPerH·L).
+ */
+export interface InductorPart extends PartBase {
+  energyJ: number;
+  dcrOhmPerH: number;
+}
+
+/** A whole parts library. */
+export interface PartsLibrary {
+  name: string;
+  version: string;
+  /** ISO 4217 code of every unit price. */
+  currency: string;
+  /** True for invented demonstration data. */
+  demo?: boolean;
+  note?: string;
+  mosfets: MosfetPart[];
+  srMosfets: MosfetPart[];
+  rectifiers: RectifierPart[];
+  clampDiodes: RectifierPart[];
+  gateDrivers: GateDriverPart[];
+  cores: CorePart[];
+  capacitors: CapacitorPart[];
+  resistors: ResistorPart[];
+  inductors: InductorPart[];
+}
+
+/** Library category names. */
+export type PartCategory = Exclude<keyof PartsLibrary, 'name' | 'version' | 'currency' | 'demo' | 'note'>;

@@ -1,0 +1,81 @@
+import { CLAMP_RIPPLE_RATIO, DUTY_MARGIN, WINDING_CAPACITANCE_F } from '../assumptions';
+import { snapUp } from '../eseries';
+import { selectMosfet } from '../parts/select';
+import { chooseClampCap, hotRdsOhm } from './common';
+import type { ResetSchemeModel } from './types';
+
+/**
+ * Equal-stress duty of the active clamp, Dmax = Vmax/(Vmax + Vmin) at Vmin, which makes
+ * Vds(Vmin) = Vds(Vmax) = Vmin + Vmax (derived from Vds = Vin²/(Vin − K), K = Vin·D).
+ */
+export function equalStressDuty(vinMinV: number, vinMaxV: number): number {
+  if (!(vinMinV > 0) || !(vinMaxV >= vinMinV)) throw new RangeError(`need 0 < vinMin ≤ vinMax, got ${vinMinV}, ${vinMaxV}`);
+  return vinMaxV / (vinMaxV + vinMinV);
+}
+
+/** Active-clamp off-state voltage Vds = Vin/(1 − D) = Vin²/(Vin − K), U-shaped over line (derived). */
+export function activeClampOffStateV(vinV: number, kV: number): number {
+  if (!(vinV > kV)) throw new RangeError(`active clamp needs Vin > Vin·D (got Vin ${vinV} V, K ${kV} V)`);
+  return (vinV * vinV) / (vinV - kV);
+}
+
+/**
+ * Active-clamp forward (high-side: N-FET + Cc across the primary, Vc = Vin·D/(1−D);
+ * low-side: P-FET + Cc from drain to ground, Vc = Vin/(1−D)). Both switches see Vin/(1−D);
+ * flux is bipolar; energy recycled; volt-second clamp assumed for transients (derived; FORMULAS §1.4).
+ */
+export const activeClamp: ResetSchemeModel = {
+  id: 'active-clamp',
+  label: 'Active clamp',
+  switchCount: 2,
+  bipolarFlux: true,
+  leakageClamped: true,
+  seriesSwitches: 1,
+  clampAllowance: CLAMP_RIPPLE_RATIO / 2,
+  diodeRole: 'clamp-diode',
+  capacitorRole: 'clamp-capacitor',
+  restressAfterReset: false,
+  formulas: {
+    dutyLimit: 'Dlim = min(maxDuty − margin, Vin,max/(Vin,max + Vin,min))',
+    offState: 'Vds = Vin/(1 − D) = Vin²/(Vin − Vin·D), worst at either end of the range',
+    transient: 'volt-second clamp assumed: D ≤ K/Vin, so the transient equals the steady worst case',
+    forwardReverse: 'VR(D1) = n·Vin·D/(1 − D), largest at low line',
+    resetLoss: 'P = Iaux,rms²·Rds,aux, Iaux,rms = (ΔIm/2)·√((1 − D)/3)',
+    source: 'derived (volt-second and charge balance), FORMULAS §1.4',
+  },
+  resetDutyLimit: (spec) => spec.maxDuty,
+  designDutyLimit: (spec) => Math.min(spec.maxDuty - DUTY_MARGIN, equalStressDuty(spec.vinMinV, spec.vinMaxV)),
+  transientDuty: (d) => d.kV / d.spec.vinMaxV,
+  prepare() {},
+  resetVoltageV: (d, vinV) => (d.kV * vinV) / (vinV - d.kV),
+  offStateV: (d, vinV) => activeClampOffStateV(vinV, d.kV),
+  transientV: (d) => activeClampOffStateV(d.spec.vinMaxV, d.kV),
+  turnOnV(d, vinV) {
+    // Partial ZVS: Lm resonance brings the drain to ≈ Vin, leakage energy takes it lower (FORMULAS §1.4).
+    const coss = d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0;
+    const cEq = 2 * coss + WINDING_CAPACITANCE_F;
+    return Math.max(0, vinV - d.magnetizingPeakA * Math.sqrt(d.llkH / cEq));
+  },
+  sizeReset(d) {
+    const s = d.spec;
+    const dMin = d.dutyAtVinMax;
+    const highSide = s.activeClampVariant === 'high-side';
+    d.clampV = highSide
+      ? Math.max(this.resetVoltageV(d, s.vinMinV), this.resetVoltageV(d, s.vinMaxV))
+      : d.switchPeakV;
+    d.auxRmsA = d.magnetizingPeakA * Math.sqrt((1 - dMin) / 3);
+    const list = highSide ? d.index.nMosfets : d.index.pMosfets;
+    const aux = selectMosfet(list, d.switchStressV / s.voltageDerating, d.auxRmsA, d.poutW, s.annualVolume);
+    if (aux) d.auxSwitch = aux.part; else d.fails.push('no-aux-switch');
+    // Cc from the ripple ratio ΔVc/Vc = (1 − D)²/(8·Lm·Cc·fs²) (derived).
+    d.clampCapF = snapUp(((1 - dMin) * (1 - dMin)) / (8 * d.lmH * CLAMP_RIPPLE_RATIO * s.fswHz * s.fswHz), 'E6');
+    chooseClampCap(d, d.clampCapF, d.clampV);
+    d.lowSideDrivers = highSide ? 1 : 2;
+    d.highSideDrivers = highSide ? 1 : 0;
+  },
+  resetLossW(d, _vinV, duty) {
+    if (!d.auxSwitch) return 0;
+    const irms = d.magnetizingPeakA * Math.sqrt((1 - duty) / 3);
+    return irms * irms * hotRdsOhm(d.auxSwitch.rdsOnOhm, 1);
+  },
+};

@@ -1,0 +1,68 @@
+import { RCD_CLAMP_MARGIN, RCD_DESIGN_DUTY } from '../assumptions';
+import { snapDown, snapUp } from '../eseries';
+import { selectResistor } from '../parts/select';
+import { chooseClampCap, chooseClampDiode, vfOf } from './common';
+import type { ResetSchemeModel } from './types';
+
+/** RCD clamp voltage needed at the design duty, with the 20 % margin: Vcl = 1.2·K/(1 − Dlim) (derived, FORMULAS §1.2). */
+function clampRatio(dutyLimit: number): number {
+  return (RCD_CLAMP_MARGIN * dutyLimit) / (1 - dutyLimit);
+}
+
+/** Clamp dissipation P_R = fs·(½·Lm·Im,pk² + ½·Llk·Ip,pk²) (derived by energy balance). */
+export function rcdClampLossW(lmH: number, imPkA: number, llkH: number, ipPkA: number, fswHz: number): number {
+  return fswHz * (0.5 * lmH * imPkA * imPkA + 0.5 * llkH * ipPkA * ipPkA);
+}
+
+/**
+ * Single-switch forward with an RCD clamp across the primary: Vds = Vin + Vcl; reset needs
+ * Vcl ≥ Vin·D/(1 − D); magnetizing and leakage energy are dissipated in R (derived; common practice).
+ */
+export const rcdClamp: ResetSchemeModel = {
+  id: 'rcd-clamp',
+  label: 'RCD clamp',
+  switchCount: 1,
+  bipolarFlux: false,
+  leakageClamped: true,
+  seriesSwitches: 1,
+  clampAllowance: 0,
+  diodeRole: 'clamp-diode',
+  capacitorRole: 'clamp-capacitor',
+  restressAfterReset: false,
+  formulas: {
+    dutyLimit: 'Dlim = min(maxDuty, 0.5); reset limit Vcl/(Vin,min + Vcl)',
+    offState: 'Vds = Vin + Vcl, Vcl = 1.2·Vin·D/(1 − D) at Dlim',
+    transient: 'Vds → Vin,max/(1 − Dlim) when D reaches its limit at high line',
+    forwardReverse: 'VR(D1) = n·Vcl',
+    resetLoss: 'P_R = fs·(½·Lm·Im,pk² + ½·Llk·Ip,pk²)',
+    source: 'derived (volt-second and energy balance); common practice',
+  },
+  resetDutyLimit(spec) {
+    const x = clampRatio(Math.min(spec.maxDuty, RCD_DESIGN_DUTY));
+    return x / (1 + x);
+  },
+  designDutyLimit: (spec) => Math.min(spec.maxDuty, RCD_DESIGN_DUTY),
+  transientDuty: (d) => d.dutyLimit,
+  prepare(d) {
+    d.clampV = (RCD_CLAMP_MARGIN * d.kV) / (1 - d.dutyLimit);
+  },
+  resetVoltageV: (d) => d.clampV,
+  offStateV: (d, vinV) => vinV + d.clampV,
+  transientV: (d) => d.spec.vinMaxV / (1 - d.transientDuty),
+  turnOnV: (_d, vinV) => vinV,
+  sizeReset(d) {
+    const p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, d.primaryPeakA, d.spec.fswHz);
+    d.clampResOhm = snapDown((d.clampV * d.clampV) / p, 'E24');
+    d.clampRes = selectResistor(d.index.resistors, p, d.clampV);
+    if (!d.clampRes) d.fails.push('no-clamp-part');
+    // C ≥ Vcl/(R·fs·ΔVcl) with ΔVcl = 10 % of Vcl (derived; ripple share common practice).
+    d.clampCapF = snapUp(1 / (d.clampResOhm * d.spec.fswHz * 0.1), 'E6');
+    chooseClampCap(d, d.clampCapF, d.clampV);
+    chooseClampDiode(d, d.spec.vinMaxV + d.clampV, p / d.clampV, 1);
+    d.lowSideDrivers = 1;
+  },
+  resetLossW(d, _vinV, _duty, primaryPeakA) {
+    const p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, primaryPeakA, d.spec.fswHz);
+    return p + vfOf(d) * p / d.clampV;
+  },
+};

@@ -1,0 +1,46 @@
+import { chooseClampDiode, vfOf, withMargin } from './common';
+import type { ResetSchemeModel } from './types';
+
+/**
+ * Single-switch forward with a tertiary (reset) winding, Nr/Np = r.
+ * Dmax = 1/(1 + Nr/Np); Vds = Vin·(1 + Np/Nr) (2·Vin for 1:1), plus an unclamped leakage spike.
+ * Sources: Erickson & Maksimović 2nd ed. §6.3.4 [M]; Mohan, Undeland & Robbins ch. 10 [M]; Hart §7.4 [M].
+ */
+export const tertiaryWinding: ResetSchemeModel = {
+  id: 'tertiary-winding',
+  label: 'Tertiary winding',
+  switchCount: 1,
+  bipolarFlux: false,
+  leakageClamped: false,
+  seriesSwitches: 1,
+  clampAllowance: 0,
+  diodeRole: 'reset-diode',
+  capacitorRole: 'clamp-capacitor',
+  restressAfterReset: false,
+  formulas: {
+    dutyLimit: 'Dlim = 1/(1 + Nr/Np) − margin',
+    offState: 'Vds = Vin·(1 + Np/Nr)',
+    transient: 'Vds = Vin,max·(1 + Np/Nr) (independent of D; D must be hard-limited)',
+    forwardReverse: 'VR(D1) = n·Vin·Np/Nr',
+    resetLoss: 'P = VF·Im,pk·D/2 + ½·Llk·Ip²·fs (reset diode + leakage energy in the snubber)',
+    source: 'Erickson & Maksimović 2nd ed. §6.3.4 [M]; Mohan, Undeland & Robbins ch. 10 [M]; Hart §7.4 [M]',
+  },
+  resetDutyLimit: (spec) => 1 / (1 + spec.resetTurnsRatio),
+  designDutyLimit: (spec) => withMargin(1 / (1 + spec.resetTurnsRatio), spec.maxDuty),
+  transientDuty: (d) => d.dutyLimit,
+  prepare(d) {
+    d.resetTurnsRatio = d.spec.resetTurnsRatio;
+  },
+  resetVoltageV: (d, vinV) => vinV / d.resetTurnsRatio,
+  offStateV: (d, vinV) => vinV * (1 + 1 / d.resetTurnsRatio),
+  transientV: (d) => d.spec.vinMaxV * (1 + 1 / d.resetTurnsRatio),
+  turnOnV: (_d, vinV) => vinV,
+  sizeReset(d) {
+    // Reset diode blocks Vin·(1 + Nr/Np) while the switch is on (derived).
+    chooseClampDiode(d, d.spec.vinMaxV * (1 + d.resetTurnsRatio), d.magnetizingPeakA * d.dutyAtVinMin / 2, 1);
+    d.lowSideDrivers = 1;
+  },
+  resetLossW(d, _vinV, duty, primaryPeakA) {
+    return vfOf(d) * d.magnetizingPeakA * duty / 2 + 0.5 * d.llkH * primaryPeakA * primaryPeakA * d.spec.fswHz;
+  },
+};

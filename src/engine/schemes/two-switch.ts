@@ -1,0 +1,45 @@
+import { RAIL_CLAMP_OVERSHOOT } from '../assumptions';
+import { chooseClampDiode, vfOf, withMargin } from './common';
+import type { ResetSchemeModel } from './types';
+
+/**
+ * Two-switch (double-ended) forward: each switch is clamped to the rail, Vds = Vin; reset through
+ * the primary at −Vin gives Dmax = 0.5; magnetizing and leakage energy return to the input.
+ * Sources: Hart §7.5 [M]; Pressman, Billings & Morey 3rd ed. ch. 2 [M]; Mohan, Undeland & Robbins ch. 10 [M].
+ */
+export const twoSwitch: ResetSchemeModel = {
+  id: 'two-switch',
+  label: 'Two-switch',
+  switchCount: 2,
+  bipolarFlux: false,
+  leakageClamped: true,
+  seriesSwitches: 2,
+  clampAllowance: RAIL_CLAMP_OVERSHOOT,
+  diodeRole: 'clamp-diode',
+  capacitorRole: 'clamp-capacitor',
+  restressAfterReset: false,
+  formulas: {
+    dutyLimit: 'Dlim = 0.5 − margin',
+    offState: 'Vds = Vin on each switch (clamped by the diodes to the rails)',
+    transient: 'Vds = Vin,max (clamped) + diode-recovery allowance',
+    forwardReverse: 'VR(D1) = n·Vin',
+    resetLoss: 'P = 2·VF·(Im,pk·D/2 + ½·Ip·tlk·fs), tlk = Llk·Ip/Vin',
+    source: 'Hart §7.5 [M]; Pressman, Billings & Morey 3rd ed. ch. 2 [M]; Mohan, Undeland & Robbins ch. 10 [M]',
+  },
+  resetDutyLimit: () => 0.5,
+  designDutyLimit: (spec) => withMargin(0.5, spec.maxDuty),
+  transientDuty: (d) => d.dutyLimit,
+  prepare() {},
+  resetVoltageV: (_d, vinV) => vinV,
+  offStateV: (_d, vinV) => vinV,
+  transientV: (d) => d.spec.vinMaxV,
+  turnOnV: (_d, vinV) => vinV / 2,
+  sizeReset(d) {
+    chooseClampDiode(d, d.spec.vinMaxV, d.magnetizingPeakA * d.dutyAtVinMin / 2 + 0.1 * d.primaryPeakA, 2);
+    d.highSideDrivers = 1;
+  },
+  resetLossW(d, vinV, duty, primaryPeakA) {
+    const tLeakS = (d.llkH * primaryPeakA) / vinV;
+    return 2 * vfOf(d) * (d.magnetizingPeakA * duty / 2 + 0.5 * primaryPeakA * tLeakS * d.spec.fswHz);
+  },
+};

@@ -1,0 +1,58 @@
+import type { NormalisedSpec } from '../../schemas/spec';
+import type { Design } from '../design/types';
+import type { SchemeId } from '../scheme-ids';
+
+/** Formula text and source for the scheme-specific key figures (shown on hover). */
+export interface SchemeFormulas {
+  dutyLimit: string;
+  offState: string;
+  transient: string;
+  forwardReverse: string;
+  resetLoss: string;
+  source: string;
+}
+
+/**
+ * One reset scheme: the hooks the common pipeline calls. A sixth scheme is one module
+ * implementing this, one line in registry.ts and one test table.
+ */
+export interface ResetSchemeModel {
+  id: SchemeId;
+  label: string;
+  /** Primary-side power switches. */
+  switchCount: number;
+  /** Flux swings about zero (±ΔB/2) instead of from remanence upwards. */
+  bipolarFlux: boolean;
+  /** Leakage energy is clamped by the reset network (no spike allowance needed). */
+  leakageClamped: boolean;
+  /** Main switches in series in the current path (two-switch: 2). */
+  seriesSwitches: number;
+  formulas: SchemeFormulas;
+  /** BOM role names of the reset network's diode and capacitor. */
+  diodeRole: string;
+  capacitorRole: string;
+  /** Stress must be recomputed after sizeReset (the reset network changes the peak). */
+  restressAfterReset: boolean;
+  /** Reset-limited duty before the margin, for the spec's parameters. */
+  resetDutyLimit(spec: NormalisedSpec): number;
+  /** Design duty limit: reset limit less the margin, capped by the controller. */
+  designDutyLimit(spec: NormalisedSpec): number;
+  /** Duty the controller may reach at high line during a transient (before the loop settles). */
+  transientDuty(d: Design): number;
+  /** Called once K = Vin·D is known: set clamp / resonant design voltages. */
+  prepare(d: Design): void;
+  /** Primary voltage during reset (magnitude) at vinV, steady state. */
+  resetVoltageV(d: Design, vinV: number): number;
+  /** Steady off-state voltage of a main switch at vinV (no spike). */
+  offStateV(d: Design, vinV: number): number;
+  /** High-line transient off-state voltage (no spike). */
+  transientV(d: Design): number;
+  /** Allowance on top of the steady peak for clamped schemes (ripple, diode recovery), fraction. */
+  clampAllowance: number;
+  /** Drain voltage at main-switch turn-on. */
+  turnOnV(d: Design, vinV: number): number;
+  /** Size the reset network once Lm and the main switch are known; may update clamp voltages. */
+  sizeReset(d: Design): void;
+  /** Reset/clamp loss at vinV and load (W), excluding nothing the common terms already count. */
+  resetLossW(d: Design, vinV: number, duty: number, primaryPeakA: number, primaryRmsA: number): number;
+}

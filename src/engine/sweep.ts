@@ -1,0 +1,31 @@
+import type { NormalisedSpec } from '../schemas/spec';
+import { designScheme } from './design/pipeline';
+import { indexLibrary } from './parts/index-library';
+import { demoPartsLibrary } from './parts/demo-library';
+import type { PartsLibrary } from './parts/types';
+import { schemeModel } from './registry';
+import type { SchemeId } from './scheme-ids';
+
+/** One point of the line sweep: duty and steady off-state switch voltage at an input voltage. */
+export interface VinSweepPoint {
+  vinV: number;
+  duty: number;
+  switchV: number;
+  rectifierForwardV: number;
+}
+
+/**
+ * Duty D = K/Vin and steady switch voltage across the input range for the charts
+ * (`points` evenly spaced from vinMinV to vinMaxV, at least 2). Formulas per scheme, FORMULAS §1.
+ */
+export function sweepVin(spec: NormalisedSpec, scheme: SchemeId, points = 41, library: PartsLibrary = demoPartsLibrary): VinSweepPoint[] {
+  if (!Number.isInteger(points) || points < 2 || points > 10000) throw new RangeError(`points must be an integer from 2 to 10000, got ${points}`);
+  const d = designScheme(spec, scheme, indexLibrary(library));
+  const model = schemeModel(scheme);
+  const out: VinSweepPoint[] = [];
+  for (let k = 0; k < points; k++) {
+    const vinV = spec.vinMinV + ((spec.vinMaxV - spec.vinMinV) * k) / (points - 1);
+    out.push({ vinV, duty: d.kV / vinV, switchV: model.offStateV(d, vinV), rectifierForwardV: d.turnsRatio * model.resetVoltageV(d, vinV) });
+  }
+  return out;
+}
