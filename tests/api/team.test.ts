@@ -76,6 +76,17 @@ describe('team API', () => {
     expect(again.status).toBe(401);
   });
 
+  it('concurrent writes are neither lost nor corrupted (PGlite serialises them)', async () => {
+    const emails = Array.from({ length: 12 }, (_, i) => `parallel${i}@halvard.example`);
+    const replies = await Promise.all(
+      emails.map((email, i) => call('POST', '/api/v1/users', admin, { email, name: `Parallel ${i}`, role: 'engineer', password: 'parallel-password' })),
+    );
+    expect(replies.map((r) => r.status)).toEqual(emails.map(() => 201));
+    const { users } = await (await call('GET', '/api/v1/users', admin)).json();
+    const listed = new Set(users.map((u: { email: string }) => u.email));
+    for (const email of emails) expect(listed.has(email)).toBe(true);
+  });
+
   it('PATCH validates and knows unknown members', async () => {
     expect((await call('PATCH', '/api/v1/users/demo-engineer', admin, {})).status).toBe(400);
     expect((await call('PATCH', '/api/v1/users/demo-engineer', admin, { active: 'yes' })).status).toBe(400);

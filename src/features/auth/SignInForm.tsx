@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 
 interface DemoLogin {
   email: string;
@@ -30,7 +30,7 @@ export default function SignInForm({ next, demoLogins, demoPassword }: Props) {
 
   const fieldError = (name: string) => problem?.fields?.find((f) => f.field === name)?.message;
 
-  async function submit(event: FormEvent) {
+  async function submit(event: { preventDefault(): void }) {
     event.preventDefault();
     setBusy(true);
     setProblem(null);

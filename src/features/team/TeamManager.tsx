@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import type { UserJson } from './user-json';
 
 type Role = UserJson['role'];
@@ -42,7 +42,7 @@ export default function TeamManager({ initialUsers, currentUserId }: Props) {
   const fieldError = (name: string) => formProblem?.fields?.find((f) => f.field === name)?.message;
   const replace = (updated: UserJson) => setUsers((list) => list.map((u) => (u.id === updated.id ? updated : u)));
 
-  async function addMember(event: FormEvent) {
+  async function addMember(event: { preventDefault(): void }) {
     event.preventDefault();
     setBusy(true);
     setFormProblem(null);
