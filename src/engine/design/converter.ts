@@ -26,6 +26,32 @@ function rectifierDrop(d: Design): number {
   return d.rectDiode ? d.rectDiode.vfV : 0.5;
 }
 
+/**
+ * Rectifier reverse voltages (forward D1: n × reset voltage, worst end of the range; freewheel D2:
+ * n·Vin,max; derived, FORMULAS §1) and the cheapest part blocking both with derating.
+ */
+export function chooseRectifier(d: Design, model: ResetSchemeModel): void {
+  const s = d.spec;
+  const forcedId = s.overrides[d.scheme]?.partIds?.rectifier;
+  d.rectForwardV = d.turnsRatio * Math.max(model.resetVoltageV(d, s.vinMinV), model.resetVoltageV(d, s.vinMaxV));
+  d.rectFreewheelV = d.turnsRatio * s.vinMaxV;
+  const vr = Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating;
+  const dutyWorst = Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV);
+  if (forcedId) {
+    const forced = d.index.byId.get(forcedId);
+    if (s.rectifier === 'synchronous') d.rectSr = (forced as MosfetPart | undefined) ?? null; else d.rectDiode = (forced as RectifierPart | undefined) ?? null;
+    d.rectQty = 1;
+  } else if (s.rectifier === 'synchronous') {
+    const c = selectMosfet(d.index.srMosfets, vr, s.ioutA * Math.sqrt(dutyWorst), d.poutW, s.annualVolume);
+    d.rectSr = c ? c.part : null;
+    d.rectQty = c ? c.qty : 1;
+  } else {
+    const c = selectRectifier(d.index.rectifiers, vr, s.ioutA * dutyWorst, s.annualVolume);
+    d.rectDiode = c ? c.part : null;
+    d.rectQty = c ? c.qty : 1;
+  }
+}
+
 /** Stage 1–2: duty limit, rectifier drop, turns ratio, volt-seconds K and the duty at three lines. */
 export function designConversion(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
@@ -34,28 +60,13 @@ export function designConversion(d: Design, model: ResetSchemeModel): void {
   d.dutyLimit = ov?.dutyLimit ?? model.designDutyLimit(s);
   if (d.dutyLimit > d.resetDutyLimit + 1e-12) d.fails.push('duty-limit-above-reset');
   d.windingDropV = WINDING_DROP_SHARE * s.voutV;
-  const forced = ov?.partIds?.rectifier ? d.index.byId.get(ov.partIds.rectifier) : undefined;
   for (let pass = 0; pass < 2; pass++) {
     d.rectifierDropV = rectifierDrop(d);
     d.dropsV = d.rectifierDropV + d.windingDropV;
     d.turnsRatio = ov?.turnsRatio ?? turnsRatioFor(s.voutV, d.dropsV, d.dutyLimit, s.vinMinV);
     d.kV = (s.voutV + d.dropsV) / d.turnsRatio;
     model.prepare(d);
-    d.rectForwardV = d.turnsRatio * Math.max(model.resetVoltageV(d, s.vinMinV), model.resetVoltageV(d, s.vinMaxV));
-    d.rectFreewheelV = d.turnsRatio * s.vinMaxV;
-    const vr = Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating;
-    if (forced) {
-      if (s.rectifier === 'synchronous') d.rectSr = forced as MosfetPart; else d.rectDiode = forced as RectifierPart;
-      d.rectQty = 1;
-    } else if (s.rectifier === 'synchronous') {
-      const c = selectMosfet(d.index.srMosfets, vr, s.ioutA * Math.sqrt(Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV)), d.poutW, s.annualVolume);
-      d.rectSr = c ? c.part : null;
-      d.rectQty = c ? c.qty : 1;
-    } else {
-      const c = selectRectifier(d.index.rectifiers, vr, s.ioutA * Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV), s.annualVolume);
-      d.rectDiode = c ? c.part : null;
-      d.rectQty = c ? c.qty : 1;
-    }
+    chooseRectifier(d, model);
   }
   if (!d.rectSr && !d.rectDiode) d.fails.push('no-rectifier');
   d.dutyAtVinMin = d.kV / s.vinMinV;

@@ -57,14 +57,19 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
     fitTurns(d, core, model, deltaBDesignT);
   } else {
     let core = selectCore(d.index.coresByAp, d.index.coreApM4, ap, s.annualVolume);
+    if (!core) {
+      // Nothing large enough: carry on with the largest core so every figure stays defined.
+      d.fails.push('no-core');
+      core = d.index.coresByAp[d.index.coresByAp.length - 1]!;
+    }
     for (let tries = 0; core && tries < 4; tries++) {
       fitTurns(d, core, model, deltaBDesignT);
       if (d.windowFill <= 1) break;
       // Windings do not fit: move to the next larger area product.
       core = selectCore(d.index.coresByAp, d.index.coreApM4, core.aeM2 * core.waM2 * (1 + 1e-9), s.annualVolume);
     }
-    if (!d.core) { d.fails.push('no-core'); return; }
   }
+  if (!d.core) { d.fails.push('no-core'); return; }
   const core = d.core!;
   if (d.windowFill > 1) d.fails.push('windings-do-not-fit');
   if (d.bTransientT > d.bAvailableT) d.fails.push('flux-above-saturation');

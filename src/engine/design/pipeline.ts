@@ -4,7 +4,7 @@ import { schemeModel } from '../registry';
 import type { SchemeId } from '../scheme-ids';
 import { subScores, weightedScore } from '../score';
 import { costAndCount } from './bom';
-import { designConversion, designFilter } from './converter';
+import { chooseRectifier, designConversion, designFilter } from './converter';
 import { designMagnetics } from './magnetics';
 import { efficiencyOf, lossesAt } from './operating-point';
 import { designCurrents, designSnubber, designStress } from './stress';
@@ -48,7 +48,11 @@ export function designScheme(spec: NormalisedSpec, scheme: SchemeId, index: Libr
     designCurrents(d);
     designStress(d, model);
     model.sizeReset(d);
-    if (model.restressAfterReset) designStress(d, model);
+    if (model.restressAfterReset) {
+      designStress(d, model);
+      chooseRectifier(d, model);
+      if (!d.rectSr && !d.rectDiode) d.fails.push('no-rectifier');
+    }
     designSnubber(d);
     d.lossesW = lossesAt(d, model, spec.vinNomV, 1);
     d.efficiency = efficiencyOf(d.poutW, d.lossesW.total);

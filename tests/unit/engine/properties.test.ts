@@ -1,0 +1,78 @@
+import fc from 'fast-check';
+import { describe, expect, test } from 'vitest';
+import { designScheme } from '../../../src/engine/design/pipeline';
+import { evaluateNormalised } from '../../../src/engine/evaluate';
+import { indexLibrary } from '../../../src/engine/parts/index-library';
+import { demoPartsLibrary } from '../../../src/engine/parts/demo-library';
+import { SCHEME_IDS } from '../../../src/engine/scheme-ids';
+import { spec } from './helpers';
+
+const index = indexLibrary(demoPartsLibrary);
+
+/** Random valid requirement sets: input 10–450 V with a range ratio up to 2.5, output 1.8–48 V, 2–600 W. */
+const rawSpec = fc.record({
+  vinMinV: fc.double({ min: 10, max: 450, noNaN: true }),
+  ratio: fc.double({ min: 1, max: 2.5, noNaN: true }),
+  nomShare: fc.double({ min: 0, max: 1, noNaN: true }),
+  voutV: fc.double({ min: 1.8, max: 48, noNaN: true }),
+  poutW: fc.double({ min: 2, max: 600, noNaN: true }),
+  fswHz: fc.double({ min: 50e3, max: 1e6, noNaN: true }),
+  rectifier: fc.constantFrom('diode', 'synchronous'),
+  rippleRatio: fc.double({ min: 0.1, max: 0.6, noNaN: true }),
+}).map((r) => {
+  const vinMaxV = Math.min(1500, r.vinMinV * r.ratio);
+  return {
+    vinMinV: r.vinMinV, vinMaxV, vinNomV: r.vinMinV + r.nomShare * (vinMaxV - r.vinMinV),
+    voutV: r.voutV, ioutA: r.poutW / r.voutV, fswHz: r.fswHz, rectifier: r.rectifier, rippleRatio: r.rippleRatio,
+  };
+});
+const scheme = fc.constantFrom(...SCHEME_IDS);
+
+describe('engine invariants over random valid specs (fast-check)', () => {
+  test('n·D·Vin = Vout + drops at Vin min, nom and max (derived: volt-second balance, FORMULAS §1.0)', () => {
+    fc.assert(fc.property(rawSpec, scheme, (raw, id) => {
+      const d = designScheme(spec(raw), id, index);
+      for (const [duty, vin] of [[d.dutyAtVinMin, raw.vinMinV], [d.dutyAtVinNom, raw.vinNomV], [d.dutyAtVinMax, raw.vinMaxV]] as const) {
+        expect(d.turnsRatio * duty * vin).toBeCloseTo(raw.voutV + d.dropsV, 9);
+      }
+    }), { numRuns: 300 });
+  });
+  test('duty never exceeds its limit, nor the reset limit (derived)', () => {
+    fc.assert(fc.property(rawSpec, scheme, (raw, id) => {
+      const d = designScheme(spec(raw), id, index);
+      expect(d.dutyAtVinMin).toBeLessThanOrEqual(d.dutyLimit + 1e-12);
+      expect(d.dutyAtVinNom).toBeLessThanOrEqual(d.dutyAtVinMin + 1e-12);
+      expect(d.dutyAtVinMax).toBeLessThanOrEqual(d.dutyAtVinNom + 1e-12);
+      if (!d.fails.includes('resonant-reset-incomplete')) expect(d.dutyLimit).toBeLessThanOrEqual(d.resetDutyLimit + 1e-12);
+    }), { numRuns: 300 });
+  });
+  test('losses add up to Pin − Pout (definition of efficiency, energy balance)', () => {
+    fc.assert(fc.property(rawSpec, (raw) => {
+      const c = evaluateNormalised(spec(raw));
+      for (const r of c.results) {
+        if (!r.core.partId) continue;
+        const l = r.lossesW;
+        const parts = l.switchConduction + l.switching + l.gateDrive + l.resetOrClamp + l.rectifiers + l.transformer + l.inductor;
+        const pout = raw.voutV * raw.ioutA;
+        const pin = pout / r.efficiency;
+        expect(pin - pout).toBeCloseTo(parts, 6);
+        expect(l.total).toBeCloseTo(parts, 9);
+        for (const v of Object.values(l)) expect(v).toBeGreaterThanOrEqual(0);
+        for (const p of r.efficiencyVsLoad) expect(p.efficiency).toBeGreaterThan(0);
+      }
+    }), { numRuns: 60 });
+  });
+  test('raising vinMaxV never lowers switchPeakV (derived: every Vds(Vin) rises at high line)', () => {
+    fc.assert(fc.property(rawSpec, scheme, fc.double({ min: 1, max: 1.5, noNaN: true }), (raw, id, up) => {
+      const higher = { ...raw, vinMaxV: Math.min(1500, raw.vinMaxV * up) };
+      const a = designScheme(spec(raw), id, index);
+      const b = designScheme(spec(higher), id, index);
+      expect(b.switchPeakV).toBeGreaterThanOrEqual(a.switchPeakV * (1 - 1e-12));
+    }), { numRuns: 300 });
+  });
+  test('the same input gives the same output (determinism)', () => {
+    fc.assert(fc.property(rawSpec, (raw) => {
+      expect(JSON.stringify(evaluateNormalised(spec(raw)))).toBe(JSON.stringify(evaluateNormalised(spec(raw))));
+    }), { numRuns: 30 });
+  });
+});

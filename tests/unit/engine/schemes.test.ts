@@ -1,0 +1,148 @@
+import { describe, expect, test } from 'vitest';
+import { evaluateNormalised } from '../../../src/engine/evaluate';
+import { activeClampOffStateV, equalStressDuty } from '../../../src/engine/schemes/active-clamp';
+import { rcdClampLossW } from '../../../src/engine/schemes/rcd-clamp';
+import { resonantDutyLimit, resonantPeakV } from '../../../src/engine/schemes/resonant-reset';
+import { sweepVin } from '../../../src/engine/sweep';
+import type { SchemeResult } from '../../../src/engine/result-types';
+import { INDUSTRIAL, SERVER, spec, TELECOM } from './helpers';
+
+const byScheme = (raw: Record<string, unknown>): Record<string, SchemeResult> =>
+  Object.fromEntries(evaluateNormalised(spec(raw)).results.map((r) => [r.scheme, r]));
+
+const SPECS = { telecom: TELECOM, server: SERVER, industrial: INDUSTRIAL };
+
+describe('duty limits per scheme', () => {
+  test.each([
+    // [scheme, extra input, reset limit, design limit, source]
+    ['tertiary-winding', { resetTurnsRatio: 1 }, 0.5, 0.45, 'Erickson & Maksimović 2nd ed. §6.3.4 [M]: D ≤ 1/(1 + Nr/Np); margin 0.05 common practice'],
+    ['tertiary-winding', { resetTurnsRatio: 0.5 }, 2 / 3, 2 / 3 - 0.05, 'Mohan, Undeland & Robbins ch. 10 [M]: Dmax = 1/(1 + N3/N1)'],
+    ['two-switch', {}, 0.5, 0.45, 'Hart §7.5 [M]: Dmax = 0.5; practical ≈ 0.45'],
+    ['rcd-clamp', {}, 1.2 / 2.2, 0.5, 'derived: reset limit Vcl/(Vin + Vcl) with Vcl = 1.2·Vin,min at D = 0.5'],
+  ] as const)('%s %o → reset %d, design %d (%s)', (scheme, extra, reset, design, _source) => {
+    const r = byScheme({ ...TELECOM, ...extra })[scheme]!;
+    expect(r.details.resetDutyLimit).toBeCloseTo(reset, 9);
+    expect(r.dutyLimit).toBeCloseTo(design, 9);
+  });
+  test.each(Object.entries(SPECS))('active clamp on %s: equal-stress duty Vmax/(Vmax + Vmin) (derived, FORMULAS §1.4)', (_name, raw) => {
+    const r = byScheme(raw)['active-clamp']!;
+    expect(r.dutyLimit).toBeCloseTo(Math.min(0.7, raw.vinMaxV / (raw.vinMaxV + raw.vinMinV)), 9);
+  });
+  test('resonant reset: Dmax = 1 − π·fs·√(Lm·Cr) (derived; Murakami & Yamasaki 1988 [M])', () => {
+    expect(resonantDutyLimit(100e3, 1e-3, 1 / (1e-3 * (Math.PI * 100e3 * 2) ** 2))).toBeCloseTo(0.5, 12);
+    const r = byScheme(TELECOM)['resonant-reset']!;
+    const lm = r.details.magnetizingInductanceH;
+    expect(r.details.resetDutyLimit).toBeCloseTo(1 - Math.PI * TELECOM.fswHz * Math.sqrt(lm * r.details.resonantCapacitanceF!), 9);
+    expect(r.details.resetDutyLimit).toBeGreaterThanOrEqual(r.duty.atVinMin);
+  });
+});
+
+describe('switch peak voltage per scheme (steady state, worst over the range)', () => {
+  test.each(Object.entries(SPECS))('%s', (_name, raw) => {
+    const r = byScheme(raw);
+    // Erickson & Maksimović §6.3.4 [M]: Vds = Vin·(1 + Np/Nr) = 2·Vin for 1:1.
+    expect(r['tertiary-winding']!.switchPeakV).toBeCloseTo(2 * raw.vinMaxV, 9);
+    // Hart §7.5 [M]: each switch of the two-switch forward sees Vin.
+    expect(r['two-switch']!.switchPeakV).toBeCloseTo(raw.vinMaxV, 9);
+    // Derived (FORMULAS §1.2): Vds = Vin + Vcl, Vcl = 1.2·Vin·D/(1 − D) at the design duty.
+    const rcd = r['rcd-clamp']!;
+    expect(rcd.clampCapacitorV).toBeCloseTo((1.2 * rcd.details.voltSecondsV) / (1 - rcd.dutyLimit), 9);
+    expect(rcd.switchPeakV).toBeCloseTo(raw.vinMaxV + rcd.clampCapacitorV!, 9);
+    // Derived (FORMULAS §1.4): at the equal-stress duty Vds = Vin,min + Vin,max.
+    expect(r['active-clamp']!.switchPeakV).toBeCloseTo(raw.vinMinV + raw.vinMaxV, 6);
+    // Derived (FORMULAS §1.3): Vds = Vin,max + Vres,pk.
+    const rr = r['resonant-reset']!;
+    expect(rr.switchPeakV).toBeCloseTo(raw.vinMaxV + rr.details.resonantPeakV!, 9);
+  });
+  test('server bus 300–410 V classes: two-switch 500–650 V, active clamp ≈ Vmin + Vmax, tertiary ≥ 2·Vmax (common practice, FORMULAS §5.2)', () => {
+    const r = byScheme(SERVER);
+    expect(r['two-switch']!.switchRatingV).toBeGreaterThanOrEqual(500);
+    expect(r['two-switch']!.switchRatingV).toBeLessThanOrEqual(650);
+    expect(r['active-clamp']!.switchPeakV).toBeCloseTo(710, 6);
+    expect(r['tertiary-winding']!.switchStressV).toBeGreaterThan(820);
+  });
+  test('stress ≤ rating × derating for every feasible scheme (rule of thumb V_rating ≥ V_peak/0.8, common practice)', () => {
+    for (const raw of Object.values(SPECS)) {
+      for (const r of Object.values(byScheme(raw))) {
+        if (r.feasible) expect(r.switchStressV).toBeLessThanOrEqual(0.8 * r.switchRatingV! + 1e-9);
+      }
+    }
+  });
+});
+
+describe('rectifier reverse voltages', () => {
+  test.each(Object.entries(SPECS))('%s', (_name, raw) => {
+    const r = byScheme(raw);
+    for (const s of Object.values(r)) {
+      // Every scheme: D2 blocks n·Vin during the on interval (derived; Mohan, Undeland & Robbins ch. 10 [M]).
+      expect(s.rectifierReverseV.freewheel).toBeCloseTo(s.turnsRatio * raw.vinMaxV, 9);
+    }
+    // Derived (FORMULAS §1.1): D1 blocks Vin·Ns/Nr = n·Vin for a 1:1 reset winding.
+    expect(r['tertiary-winding']!.rectifierReverseV.forward).toBeCloseTo(r['tertiary-winding']!.turnsRatio * raw.vinMaxV, 9);
+    // Derived (FORMULAS §1.5): n·Vin.
+    expect(r['two-switch']!.rectifierReverseV.forward).toBeCloseTo(r['two-switch']!.turnsRatio * raw.vinMaxV, 9);
+    // Derived (FORMULAS §1.2): n·Vcl.
+    expect(r['rcd-clamp']!.rectifierReverseV.forward).toBeCloseTo(r['rcd-clamp']!.turnsRatio * r['rcd-clamp']!.clampCapacitorV!, 9);
+    // Derived (FORMULAS §1.4): n·Vin·D/(1 − D), largest at low line.
+    const ac = r['active-clamp']!;
+    expect(ac.rectifierReverseV.forward).toBeCloseTo(ac.turnsRatio * raw.vinMinV * ac.duty.atVinMin / (1 - ac.duty.atVinMin), 9);
+    // Derived (FORMULAS §1.3): n·Vres,pk.
+    const rr = r['resonant-reset']!;
+    expect(rr.rectifierReverseV.forward).toBeCloseTo(rr.turnsRatio * rr.details.resonantPeakV!, 9);
+  });
+});
+
+describe('active clamp U-shape and equal-stress duty (derived, FORMULAS §1.4)', () => {
+  test('Vds = Vin²/(Vin − K) has its minimum 4K at Vin = 2K', () => {
+    const k = 20;
+    expect(activeClampOffStateV(2 * k, k)).toBeCloseTo(4 * k, 12);
+    expect(activeClampOffStateV(1.5 * k, k)).toBeGreaterThan(4 * k);
+    expect(activeClampOffStateV(3 * k, k)).toBeGreaterThan(4 * k);
+  });
+  test('equal-stress duty 75/(75 + 36) gives equal stress at both ends', () => {
+    const dmax = equalStressDuty(36, 75);
+    expect(dmax).toBeCloseTo(75 / 111, 12);
+    const k = 36 * dmax;
+    expect(activeClampOffStateV(36, k)).toBeCloseTo(111, 9);
+    expect(activeClampOffStateV(75, k)).toBeCloseTo(111, 9);
+  });
+  test('the line sweep is U-shaped: interior minimum below both ends', () => {
+    const pts = sweepVin(spec(TELECOM), 'active-clamp', 81);
+    const vs = pts.map((p) => p.switchV);
+    const min = Math.min(...vs);
+    const at = vs.indexOf(min);
+    expect(at).toBeGreaterThan(0);
+    expect(at).toBeLessThan(vs.length - 1);
+    expect(vs[0]).toBeCloseTo(vs[vs.length - 1]!, 6);
+  });
+  test('rejects Vin ≤ K', () => {
+    expect(() => activeClampOffStateV(10, 10)).toThrow(RangeError);
+  });
+});
+
+describe('RCD clamp dissipation P = fs·(½·Lm·Im² + ½·Llk·Ip²) (derived, energy balance; FORMULAS §1.2)', () => {
+  test.each([
+    // [Lm, Im, Llk, Ip, fs, expected W]
+    [1e-3, 0.5, 0, 0, 100e3, 12.5],
+    [1e-3, 0.5, 5e-6, 4, 100e3, 12.5 + 4],
+    [200e-6, 1, 1e-6, 10, 250e3, 25 + 12.5],
+  ])('Lm %d H, Im %d A, Llk %d H, Ip %d A, fs %d Hz → %d W', (lm, im, llk, ip, fs, w) => {
+    expect(rcdClampLossW(lm, im, llk, ip, fs)).toBeCloseTo(w, 9);
+  });
+  test('magnetizing part equals (Vin·D)²/(2·Lm·fs) (derived)', () => {
+    const vinD = 135;
+    const lm = 4e-3;
+    const fs = 130e3;
+    expect(rcdClampLossW(lm, vinD / (lm * fs), 0, 0, fs)).toBeCloseTo((vinD * vinD) / (2 * lm * fs), 9);
+  });
+});
+
+describe('resonant-reset peak (derived from half-sine volt-seconds, FORMULAS §1.3)', () => {
+  test.each([[0.45], [0.5], [0.6]])('at the reset limit Dr = %d the peak is (π/2)·Vin·D/(1 − D)', (dr) => {
+    const fs = 100e3;
+    const lm = 500e-6;
+    const cr = ((1 - dr) / (Math.PI * fs)) ** 2 / lm;
+    const vin = 48;
+    expect(resonantPeakV(vin * dr, fs, lm, cr)).toBeCloseTo((Math.PI / 2) * vin * dr / (1 - dr), 9);
+  });
+});
