@@ -46,6 +46,13 @@ export const specs = pgTable(
     ownerId: text('owner_id').notNull().references(() => users.id),
     requirements: jsonb('requirements').$type<Record<string, unknown>>().notNull(),
     version: integer('version').notNull().default(1),
+    /** The server's own evaluation of `requirements` at `version`, with the engine version it used. */
+    comparison: jsonb('comparison').$type<Record<string, unknown>>(),
+    engineVersion: text('engine_version'),
+    evaluatedAt: timestamp('evaluated_at', { withTimezone: true, mode: 'date' }),
+    updatedById: text('updated_by_id').references(() => users.id),
+    /** Archived sets leave the lists but stay readable by link and in the audit trail. */
+    archivedAt: timestamp('archived_at', { withTimezone: true, mode: 'date' }),
     ...stamps,
   },
   (t) => [index('specs_owner_idx').on(t.ownerId), index('specs_updated_idx').on(t.updatedAt)],
