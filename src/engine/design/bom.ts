@@ -36,13 +36,17 @@ export function visitParts(d: Design, model: ResetSchemeModel, visit: PartVisito
 
 /** Sum price × qty at the spec's annual volume, and count the parts (stored on the design). */
 export function costAndCount(d: Design, model: ResetSchemeModel): void {
-  let cost = 0;
-  let count = 0;
-  const volume = d.spec.annualVolume;
-  visitParts(d, model, (_role, part, qty) => {
-    cost += unitPriceAt(part.tiers, volume) * qty;
-    count += qty;
-  });
-  d.bomCost = Math.round(cost * 1000) / 1000;
-  d.partCount = count;
+  acc.cost = 0;
+  acc.count = 0;
+  acc.volume = d.spec.annualVolume;
+  visitParts(d, model, accumulate);
+  d.bomCost = Math.round(acc.cost * 1000) / 1000;
+  d.partCount = acc.count;
+}
+
+// Module-level accumulator: no closure per call in the hot path (evaluation is synchronous).
+const acc = { cost: 0, count: 0, volume: 0 };
+function accumulate(_role: string, part: { tiers: PriceTier[] }, qty: number): void {
+  acc.cost += unitPriceAt(part.tiers, acc.volume) * qty;
+  acc.count += qty;
 }

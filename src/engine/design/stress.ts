@@ -32,6 +32,18 @@ export function designCurrents(d: Design): void {
   d.primaryRmsA = Math.sqrt(load + mag);
 }
 
+function pickMainSwitch(d: Design, minV: number, forcedId: string | undefined): void {
+  if (forcedId) {
+    const m = d.index.byId.get(forcedId) as MosfetPart | undefined;
+    d.mainSwitch = m && 'vdsV' in m ? m : null;
+    d.mainQty = 1;
+    return;
+  }
+  const c = selectMosfet(d.index.nMosfets, minV, d.primaryRmsA, d.poutW, d.spec.annualVolume);
+  d.mainSwitch = c ? c.part : null;
+  d.mainQty = c ? c.qty : 1;
+}
+
 /**
  * Stage 5: switch peak, transient, spike allowance (snubber-limited to 10 % where nothing clamps
  * the leakage), design stress, and the cheapest main switch rated ≥ stress/derating.
@@ -42,22 +54,10 @@ export function designStress(d: Design, model: ResetSchemeModel): void {
   d.transientV = Math.max(model.transientV(d), d.switchPeakV);
   const base = Math.max(d.switchPeakV * (1 + model.clampAllowance), d.transientV);
   const forcedId = s.overrides[d.scheme]?.partIds?.mainSwitch;
-  const pick = (minV: number): void => {
-    if (forcedId) {
-      const m = d.index.byId.get(forcedId) as MosfetPart | undefined;
-      if (!m || !('vdsV' in m)) { d.mainSwitch = null; return; }
-      d.mainSwitch = m;
-      d.mainQty = 1;
-      return;
-    }
-    const c = selectMosfet(d.index.nMosfets, minV, d.primaryRmsA, d.poutW, s.annualVolume);
-    d.mainSwitch = c ? c.part : null;
-    d.mainQty = c ? c.qty : 1;
-  };
   d.spikeV = 0;
   d.snubberNeeded = false;
   if (!model.leakageClamped) {
-    pick((base + SPIKE_FRACTION * d.switchPeakV) / s.voltageDerating);
+    pickMainSwitch(d, (base + SPIKE_FRACTION * d.switchPeakV) / s.voltageDerating, forcedId);
     const cNode = (d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0) + WINDING_CAPACITANCE_F + (d.addedCF > 0 ? d.addedCF : 0);
     const raw = leakageSpikeV(d.primaryPeakA, d.llkH, cNode);
     d.snubberNeeded = raw > SPIKE_FRACTION * d.switchPeakV;
@@ -69,7 +69,7 @@ export function designStress(d: Design, model: ResetSchemeModel): void {
     }
   }
   d.switchStressV = base + d.spikeV;
-  pick(d.switchStressV / s.voltageDerating);
+  pickMainSwitch(d, d.switchStressV / s.voltageDerating, forcedId);
   if (!d.mainSwitch) { d.fails.push(forcedId ? 'unknown-part' : 'no-switch-for-stress'); d.switchRatingV = NaN; return; }
   d.switchRatingV = d.mainSwitch.vdsV;
   if (d.switchRatingV * s.voltageDerating < d.switchStressV * (1 - 1e-9)) d.fails.push('no-switch-for-stress');

@@ -12,6 +12,9 @@ export interface Choice<T> {
 
 const byVds = (m: MosfetPart): number => m.vdsV;
 const byVrrm = (r: RectifierPart): number => r.vrrmV;
+const byVoltage = (c: CapacitorPart): number => c.voltageV;
+const byPower = (r: ResistorPart): number => r.powerW;
+const byEnergy = (p: InductorPart): number => p.energyJ;
 /** Candidates scanned past the lower bound (keeps selection O(log n + small)). */
 const SCAN = 8;
 
@@ -34,11 +37,11 @@ export function selectMosfet(list: MosfetPart[], minVdsV: number, irmsA: number,
     const m = list[i]!;
     if (m.vdsV !== lastV) { classes++; lastV = m.vdsV; if (classes > 2) break; }
     let qty = Math.max(1, Math.ceil(irmsA / (CURRENT_DERATING * m.idA)));
-    const lossAt = (q: number): number => (irmsA * irmsA * m.rdsOnOhm * RDS_HOT_FACTOR) / q;
-    while (qty < MAX_PARALLEL && lossAt(qty) > budgetW) qty++;
-    if (lossAt(qty) > budgetW || qty > MAX_PARALLEL) {
+    const lossOne = irmsA * irmsA * m.rdsOnOhm * RDS_HOT_FACTOR;
+    while (qty < MAX_PARALLEL && lossOne / qty > budgetW) qty++;
+    if (lossOne / qty > budgetW || qty > MAX_PARALLEL) {
       // Budget not met even in parallel: remember the lowest-loss fallback.
-      if (lossAt(MAX_PARALLEL) < fallbackLoss) { fallback = m; fallbackLoss = lossAt(MAX_PARALLEL); }
+      if (lossOne / MAX_PARALLEL < fallbackLoss) { fallback = m; fallbackLoss = lossOne / MAX_PARALLEL; }
       continue;
     }
     const cost = qty * unitPriceAt(m.tiers, volume);
@@ -72,7 +75,7 @@ export function selectRectifier(list: RectifierPart[], minVrrmV: number, iavgA: 
  * `maxEsrOhm` is finite, parallel ESR ≤ `maxEsrOhm` (qty up to 20).
  */
 export function selectCapacitor(list: CapacitorPart[], minVoltageV: number, minCapF: number, maxEsrOhm: number, volume: number): Choice<CapacitorPart> | null {
-  const start = lowerBound(list, minVoltageV, (c) => c.voltageV);
+  const start = lowerBound(list, minVoltageV, byVoltage);
   let best: CapacitorPart | null = null;
   let bestQty = 0;
   let bestCost = Infinity;
@@ -88,7 +91,7 @@ export function selectCapacitor(list: CapacitorPart[], minVoltageV: number, minC
 
 /** Smallest resistor family carrying `powerW` at ≤ 50 % of its rating and `voltageV`. */
 export function selectResistor(list: ResistorPart[], powerW: number, voltageV: number): ResistorPart | null {
-  for (let i = lowerBound(list, powerW / RESISTOR_POWER_DERATING, (r) => r.powerW); i < list.length; i++) {
+  for (let i = lowerBound(list, powerW / RESISTOR_POWER_DERATING, byPower); i < list.length; i++) {
     if (list[i]!.voltageV >= voltageV) return list[i]!;
   }
   return null;
@@ -96,7 +99,7 @@ export function selectResistor(list: ResistorPart[], powerW: number, voltageV: n
 
 /** Smallest inductor family storing `energyJ` (list sorted by energy, cheapest first by construction). */
 export function selectInductor(list: InductorPart[], energyJ: number): InductorPart | null {
-  return list[lowerBound(list, energyJ, (p) => p.energyJ)] ?? null;
+  return list[lowerBound(list, energyJ, byEnergy)] ?? null;
 }
 
 /**
