@@ -24,33 +24,51 @@ function check(value: number): void {
 /** Relative tolerance for comparing a value against a series step (avoids 2.2 → 2.7 from float noise). */
 const EPS = 1e-9;
 
-/**
- * Smallest series value ≥ `value` (snap UP, for a minimum requirement such as C ≥ Cmin).
- * Rule: FORMULAS.md §6, common practice. Example: snapUp(2.3e-6, 'E12') = 2.7e-6.
- */
-export function snapUp(value: number, series: ESeriesName): number {
+/** Decades 10^k for k = −30…30, computed with Math.pow so that they equal the direct computation bit for bit. */
+const DECADE_MIN = -30;
+const DECADES = Float64Array.from({ length: 61 }, (_, k) => Math.pow(10, k + DECADE_MIN));
+
+/** 10^⌊log10(value)⌋ (table look-up inside ±30 decades). */
+function decadeOf(value: number): number {
+  const k = Math.floor(Math.log10(value));
+  const ix = k - DECADE_MIN;
+  return ix >= 0 && ix < DECADES.length ? DECADES[ix]! : Math.pow(10, k);
+}
+
+/** `snapUp` on a series table (internal fast form; same rule). */
+export function snapUpIn(value: number, table: readonly number[]): number {
   check(value);
-  const table = E_SERIES[series];
-  let decade = Math.pow(10, Math.floor(Math.log10(value)));
+  const decade = decadeOf(value);
   const mantissa = value / decade;
   for (let i = 0; i < table.length; i++) {
     if (table[i]! >= mantissa * (1 - EPS)) return table[i]! * decade;
   }
-  decade *= 10;
-  return table[0]! * decade;
+  return table[0]! * (decade * 10);
 }
 
-/**
- * Largest series value ≤ `value` (snap DOWN, for a maximum such as a clamp resistor that sets a
- * voltage limit). Common practice (FORMULAS.md §6). Example: snapDown(2.3e3, 'E24') = 2.2e3.
- */
-export function snapDown(value: number, series: ESeriesName): number {
+/** `snapDown` on a series table (internal fast form; same rule). */
+export function snapDownIn(value: number, table: readonly number[]): number {
   check(value);
-  const table = E_SERIES[series];
-  const decade = Math.pow(10, Math.floor(Math.log10(value)));
+  const decade = decadeOf(value);
   const mantissa = value / decade;
   for (let i = table.length - 1; i >= 0; i--) {
     if (table[i]! <= mantissa * (1 + EPS)) return table[i]! * decade;
   }
   return table[table.length - 1]! * decade / 10;
+}
+
+/**
+ * Smallest series value ≥ `value` (snap UP, for a minimum requirement such as C ≥ Cmin).
+ * Rule: IEC 60063:2015 series, common practice. Example: snapUp(2.3e-6, 'E12') = 2.7e-6.
+ */
+export function snapUp(value: number, series: ESeriesName): number {
+  return snapUpIn(value, E_SERIES[series]);
+}
+
+/**
+ * Largest series value ≤ `value` (snap DOWN, for a maximum such as a clamp resistor that sets a
+ * voltage limit). Common practice. Example: snapDown(2.3e3, 'E24') = 2.2e3.
+ */
+export function snapDown(value: number, series: ESeriesName): number {
+  return snapDownIn(value, E_SERIES[series]);
 }

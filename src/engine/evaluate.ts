@@ -1,10 +1,12 @@
 import { parseSpecInput, type NormalisedSpec, type SpecError } from '../schemas/spec';
 import { visitParts } from './design/bom';
-import { efficiencyOf, lossesAt } from './design/operating-point';
-import { designScheme } from './design/pipeline';
+import { efficiencyOf, lossesAt, zeroLosses } from './design/operating-point';
+import { designSchemeInto } from './design/pipeline';
+import { newDesign } from './design/record';
+import { copySpec, newSpecView } from './design/spec-view';
 import type { Design } from './design/types';
 import { findingsOf } from './feasibility';
-import { indexLibrary, unitPriceAt } from './parts/index-library';
+import { indexLibrary } from './parts/index-library';
 import { demoPartsLibrary } from './parts/demo-library';
 import type { PartsLibrary } from './parts/types';
 import { schemeModel } from './registry';
@@ -26,14 +28,28 @@ export class SpecValidationError extends RangeError {
 const nullIfNaN = (x: number): number | null => (Number.isFinite(x) ? x : null);
 const LOAD_STEPS = [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1];
 
-/** Full per-scheme result from a lean design: adds findings, BOM lines, efficiency vs load and trace. */
+const loadLosses = zeroLosses();
+
+/**
+ * Full per-scheme result from a design record: adds findings, BOM lines, efficiency vs load and
+ * trace, each built once. Copies everything it keeps, so the record may be reused afterwards.
+ */
 export function resultOf(d: Design): SchemeResult {
   const model = schemeModel(d.scheme);
   const parts: BomLine[] = [];
-  visitParts(d, model, (role, part, qty) => parts.push({ role, partId: part.id, qty, unitPrice: unitPriceAt(part.tiers, d.spec.annualVolume) }));
-  const efficiencyVsLoad = d.core
-    ? LOAD_STEPS.map((loadFraction) => ({ loadFraction, efficiency: efficiencyOf(d.poutW * loadFraction, lossesAt(d, model, d.spec.vinNomV, loadFraction).total) }))
-    : [];
+  visitParts(d, model, (role, part, qty, unitPrice) => parts.push({ role, partId: part.id, qty, unitPrice }));
+  const efficiencyVsLoad: { loadFraction: number; efficiency: number }[] = [];
+  if (d.core) {
+    for (const loadFraction of LOAD_STEPS) {
+      const lossW = lossesAt(d, model, d.spec.vinNomV, loadFraction, loadLosses).total;
+      efficiencyVsLoad.push({ loadFraction, efficiency: efficiencyOf(d.poutW * loadFraction, lossW) });
+    }
+  }
+  const l = d.lossesW;
+  const lossesW = {
+    switchConduction: l.switchConduction, switching: l.switching, gateDrive: l.gateDrive, resetOrClamp: l.resetOrClamp,
+    rectifiers: l.rectifiers, transformer: l.transformer, inductor: l.inductor, total: l.total,
+  };
   return {
     scheme: d.scheme, label: model.label, feasible: d.feasible, findings: findingsOf(d, model),
     turnsRatio: d.turnsRatio, resetTurnsRatio: d.scheme === 'tertiary-winding' ? d.resetTurnsRatio : null,
@@ -44,7 +60,7 @@ export function resultOf(d: Design): SchemeResult {
     magnetizingPeakA: d.magnetizingPeakA, primaryRmsA: d.primaryRmsA,
     outputInductanceH: d.outputInductanceH, outputCapacitanceF: d.outputCapacitanceF,
     core: { partId: d.core?.id ?? null, turnsPrimary: d.turnsPrimary, deltaBT: d.deltaBT, coreLossW: d.coreLossW },
-    lossesW: d.lossesW, efficiency: d.efficiency, efficiencyVsLoad,
+    lossesW, efficiency: d.efficiency, efficiencyVsLoad,
     partCount: d.partCount, parts, bomCost: d.bomCost, currency: d.index.library.currency, score: d.score,
     details: {
       voltSecondsV: d.kV, dropsV: d.dropsV, resetDutyLimit: d.resetDutyLimit, transientSwitchV: d.transientV,
@@ -64,10 +80,21 @@ export function rankResults(results: { scheme: SchemeId; feasible: boolean; scor
   return [...results].sort((a, b) => Number(b.feasible) - Number(a.feasible) || b.score - a.score).map((r) => r.scheme);
 }
 
+// Scratch design records (evaluation is synchronous; results copy what they keep).
+let fullScratch: Design | null = null;
+let leanScratch: Design | null = null;
+const fullSpec = newSpecView();
+const leanSpec = newSpecView();
+
 /** Evaluate a normalised spec (no validation; the fast path for trusted callers). */
 export function evaluateNormalised(spec: NormalisedSpec, library: PartsLibrary = demoPartsLibrary): Comparison {
   const index = indexLibrary(library);
-  const results = spec.schemes.map((id) => resultOf(designScheme(spec, id, index)));
+  const view = copySpec(fullSpec, spec);
+  const results: SchemeResult[] = [];
+  for (const id of spec.schemes) {
+    fullScratch ??= newDesign(view, id, index);
+    results.push(resultOf(designSchemeInto(fullScratch, view, id, index)));
+  }
   return {
     engineVersion: ENGINE_VERSION, input: spec, results, ranking: rankResults(results),
     partsLibrary: { name: library.name, version: library.version, currency: library.currency, demo: library.demo === true },
@@ -86,7 +113,10 @@ export function evaluate(input: unknown, library: PartsLibrary = demoPartsLibrar
 
 /** Lean evaluation of one scheme (numbers only; no findings text, waveforms or load sweep). */
 export function evaluateLean(spec: NormalisedSpec, scheme: SchemeId, library: PartsLibrary = demoPartsLibrary): LeanResult {
-  const d = designScheme(spec, scheme, indexLibrary(library));
+  const index = indexLibrary(library);
+  const view = copySpec(leanSpec, spec);
+  leanScratch ??= newDesign(view, scheme, index);
+  const d = designSchemeInto(leanScratch, view, scheme, index);
   return {
     scheme, feasible: d.feasible, turnsRatio: d.turnsRatio, dutyLimit: d.dutyLimit,
     dutyAtVinMin: d.dutyAtVinMin, dutyAtVinMax: d.dutyAtVinMax, switchPeakV: d.switchPeakV,

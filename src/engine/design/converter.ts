@@ -1,14 +1,15 @@
 import { CAP_TOLERANCE, RDS_HOT_FACTOR, WINDING_DROP_SHARE } from '../assumptions';
-import { snapUp } from '../eseries';
+import { E12, E6, snapUpIn } from '../eseries';
 import { capacitanceForRippleF, inductanceForRippleH, inductorRippleA } from '../filter';
 import type { MosfetPart, RectifierPart } from '../parts/types';
-import { selectCapacitor, selectInductor, selectMosfet, selectRectifier } from '../parts/select';
+import { unitPriceAt } from '../parts/index-library';
+import { picked, selectCapacitor, selectInductor, selectMosfet, selectRectifier } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
 import type { Design } from './types';
 
 /**
  * Turns ratio from the lowest input at the duty limit: Vout + drops = n·D·Vin
- * (volt-second balance on the output inductor with VF1 = VF2; derived, FORMULAS §1.0).
+ * (volt-second balance on the output inductor with VF1 = VF2; derived).
  */
 export function turnsRatioFor(voutV: number, dropsV: number, dutyLimit: number, vinMinV: number): number {
   if (!(dutyLimit > 0 && dutyLimit < 1)) throw new RangeError(`duty limit must be in (0, 1), got ${dutyLimit}`);
@@ -28,34 +29,40 @@ function rectifierDrop(d: Design): number {
 
 /**
  * Rectifier reverse voltages (forward D1: n × reset voltage, worst end of the range; freewheel D2:
- * n·Vin,max; derived, FORMULAS §1) and the cheapest part blocking both with derating.
+ * n·Vin,max; derived by volt-second balance on the transformer) and the cheapest part blocking
+ * both with derating.
  */
 export function chooseRectifier(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
-  const forcedId = s.overrides[d.scheme]?.partIds?.rectifier;
+  const forcedId = d.ov?.partIds?.rectifier;
   d.rectForwardV = d.turnsRatio * Math.max(model.resetVoltageV(d, s.vinMinV), model.resetVoltageV(d, s.vinMaxV));
   d.rectFreewheelV = d.turnsRatio * s.vinMaxV;
   const vr = Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating;
   const dutyWorst = Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV);
   if (forcedId) {
-    const forced = d.index.byId.get(forcedId);
-    if (s.rectifier === 'synchronous') d.rectSr = (forced as MosfetPart | undefined) ?? null; else d.rectDiode = (forced as RectifierPart | undefined) ?? null;
+    const forced = d.index.byId.get(forcedId) as (MosfetPart & RectifierPart) | undefined;
+    if (s.rectifier === 'synchronous') d.rectSr = forced ?? null; else d.rectDiode = forced ?? null;
     d.rectQty = 1;
+    d.rectPrice = forced ? unitPriceAt(forced.tiers, s.annualVolume) : 0;
   } else if (s.rectifier === 'synchronous') {
-    const c = selectMosfet(d.index.srMosfets, vr, s.ioutA * Math.sqrt(dutyWorst), d.poutW, s.annualVolume);
-    d.rectSr = c ? c.part : null;
-    d.rectQty = c ? c.qty : 1;
+    const list = d.index.srMosfets;
+    const i = selectMosfet(list, d.prices.srMosfets, vr, s.ioutA * Math.sqrt(dutyWorst), d.poutW);
+    d.rectSr = i >= 0 ? list[i]! : null;
+    d.rectQty = i >= 0 ? picked.qty : 1;
+    d.rectPrice = i >= 0 ? d.prices.srMosfets[i]! : 0;
   } else {
-    const c = selectRectifier(d.index.rectifiers, vr, s.ioutA * dutyWorst, s.annualVolume);
-    d.rectDiode = c ? c.part : null;
-    d.rectQty = c ? c.qty : 1;
+    const list = d.index.rectifiers;
+    const i = selectRectifier(list, d.prices.rectifiers, vr, s.ioutA * dutyWorst);
+    d.rectDiode = i >= 0 ? list[i]! : null;
+    d.rectQty = i >= 0 ? picked.qty : 1;
+    d.rectPrice = i >= 0 ? d.prices.rectifiers[i]! : 0;
   }
 }
 
 /** Stage 1–2: duty limit, rectifier drop, turns ratio, volt-seconds K and the duty at three lines. */
 export function designConversion(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
-  const ov = s.overrides[d.scheme];
+  const ov = d.ov;
   d.resetDutyLimit = model.resetDutyLimit(s);
   d.dutyLimit = ov?.dutyLimit ?? model.designDutyLimit(s);
   if (d.dutyLimit > d.resetDutyLimit + 1e-12) d.fails.push('duty-limit-above-reset');
@@ -80,14 +87,15 @@ export function designFilter(d: Design): void {
   const s = d.spec;
   const voPlusDrop = s.voutV + d.dropsV;
   const target = s.rippleRatio * s.ioutA;
-  d.outputInductanceH = snapUp(inductanceForRippleH(voPlusDrop, d.dutyAtVinMax, target, s.fswHz), 'E12');
+  d.outputInductanceH = snapUpIn(inductanceForRippleH(voPlusDrop, d.dutyAtVinMax, target, s.fswHz), E12);
   d.rippleA = inductorRippleA(voPlusDrop, d.dutyAtVinMax, d.outputInductanceH, s.fswHz);
   // Half the ripple budget to capacitance, half to ESR (common practice).
   const cMin = capacitanceForRippleF(d.rippleA, s.fswHz, s.voutRippleV / 2);
-  d.outputCapacitanceF = snapUp(cMin / (1 - CAP_TOLERANCE), 'E6');
-  const bank = selectCapacitor(d.index.capacitors, s.voutV / s.voltageDerating, d.outputCapacitanceF, s.voutRippleV / 2 / d.rippleA, s.annualVolume);
-  if (bank) { d.outCap = bank.part; d.outCapQty = bank.qty; } else d.fails.push('no-output-capacitor');
+  d.outputCapacitanceF = snapUpIn(cMin / (1 - CAP_TOLERANCE), E6);
+  const caps = d.index.capacitors;
+  const c = selectCapacitor(caps, d.prices.capacitors, s.voutV / s.voltageDerating, d.outputCapacitanceF, s.voutRippleV / 2 / d.rippleA);
+  if (c >= 0) { d.outCap = caps[c]!; d.outCapQty = picked.qty; d.outCapPrice = d.prices.capacitors[c]!; } else d.fails.push('no-output-capacitor');
   const iPk = s.ioutA + d.rippleA / 2;
-  d.inductor = selectInductor(d.index.inductors, 0.5 * d.outputInductanceH * iPk * iPk);
-  if (!d.inductor) d.fails.push('no-output-inductor');
+  const l = selectInductor(d.index.inductors, 0.5 * d.outputInductanceH * iPk * iPk);
+  if (l >= 0) { d.inductor = d.index.inductors[l]!; d.inductorPrice = d.prices.inductors[l]!; } else d.fails.push('no-output-inductor');
 }

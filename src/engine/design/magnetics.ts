@@ -3,10 +3,14 @@ import {
 } from '../assumptions';
 import { areaProductM4, forwardApparentPowerW, windingLossW } from '../magnetics/area-product';
 import { coreLossDensityWPerM3, peakFluxForLossDensityT } from '../magnetics/steinmetz';
+import { unitPriceAt } from '../parts/index-library';
 import type { CorePart } from '../parts/types';
 import { selectCore } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
 import { awgForMaxDiameter, copperResistivity, skinDepthM } from '../wire';
+
+/** Hot copper resistivity (IEC 60028 / IACS at HOT_C), computed once. */
+const RHO_HOT_OHM_M = copperResistivity(HOT_C);
 import type { Design } from './types';
 
 /** Primary + secondary ampere-turns (rms) per primary turn at duty D and load current Io (derived). */
@@ -20,12 +24,12 @@ export function copperLossW(d: Design, duty: number, ioA: number, rippleA: numbe
   const core = d.core;
   if (!core) return 0;
   const at = d.turnsPrimary * ampereTurnsPerTurn(d, duty, ioA, rippleA);
-  return windingLossW(copperResistivity(HOT_C), core.mltM, at, KU_EFFECTIVE * core.waM2);
+  return windingLossW(RHO_HOT_OHM_M, core.mltM, at, KU_EFFECTIVE * core.waM2);
 }
 
 function fitTurns(d: Design, core: CorePart, model: ResetSchemeModel, deltaBDesignT: number): void {
   const s = d.spec;
-  const ov = s.overrides[d.scheme];
+  const ov = d.ov;
   d.core = core;
   d.turnsPrimary = ov?.turnsPrimary ?? Math.max(1, Math.ceil(d.kV / (deltaBDesignT * core.aeM2 * s.fswHz)));
   d.deltaBT = d.kV / (d.turnsPrimary * core.aeM2 * s.fswHz);
@@ -35,49 +39,79 @@ function fitTurns(d: Design, core: CorePart, model: ResetSchemeModel, deltaBDesi
   d.windowFill = at / (CURRENT_DENSITY_A_PER_M2 * KU_EFFECTIVE * core.waM2);
 }
 
+// One-entry memos of pure functions of the frequency (a sweep point evaluates every scheme at one fs).
+const lossFlux = { core: null as CorePart | null, fHz: NaN, deltaBT: NaN };
+const skin = { fHz: NaN, depthM: NaN, awg: NaN };
+
+/** Flux swing 2·B̂ at which the Steinmetz loss density of `core` equals the target (derived; memo of the last call). */
+function lossLimitedSwingT(core: CorePart, fHz: number): number {
+  if (lossFlux.core !== core || lossFlux.fHz !== fHz) {
+    lossFlux.deltaBT = 2 * peakFluxForLossDensityT(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, fHz, CORE_LOSS_DENSITY_W_PER_M3);
+    lossFlux.core = core;
+    lossFlux.fHz = fHz;
+  }
+  return lossFlux.deltaBT;
+}
+
+/** Skin depth of hot copper and the thickest AWG strand ≤ 2·δ at `fHz` (memo of the last call). */
+function skinAt(fHz: number): typeof skin {
+  if (skin.fHz !== fHz) {
+    skin.depthM = skinDepthM(fHz, HOT_C);
+    skin.awg = awgForMaxDiameter(2 * skin.depthM);
+    skin.fHz = fHz;
+  }
+  return skin;
+}
+
 /**
  * Stage 4: core by area product (McLyman ch. 7 [M]), flux swing limited by core loss and by
  * saturation in a high-line transient, primary turns, Lm from the ungapped AL, Steinmetz core loss.
  */
 export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
-  const ref = d.index.coresByAp[0];
+  const ix = d.index;
+  const ref = ix.coresByAp[0];
   if (!ref) { d.fails.push('no-core'); return; }
-  const dbLoss = 2 * peakFluxForLossDensityT(ref.steinmetzK, ref.steinmetzAlpha, ref.steinmetzBeta, s.fswHz, CORE_LOSS_DENSITY_W_PER_M3);
+  const dbLoss = lossLimitedSwingT(ref, s.fswHz);
   const bAvail = model.bipolarFlux ? 2 * ref.bsatT : ref.bsatT - ref.brT;
   const transientScale = (s.vinMaxV * model.transientDuty(d)) / d.kV;
   const deltaBDesignT = Math.min(dbLoss, (FLUX_MARGIN * bAvail) / transientScale);
   const duty = Math.min(Math.max(d.dutyAtVinMin, 0.05), 0.95);
   const pt = forwardApparentPowerW((s.voutV + d.dropsV) * s.ioutA, duty, 0.9);
   const ap = areaProductM4(duty, pt, KU_EFFECTIVE, deltaBDesignT, CURRENT_DENSITY_A_PER_M2, s.fswHz);
-  const forcedId = s.overrides[d.scheme]?.partIds?.core;
+  const forcedId = d.ov?.partIds?.core;
   if (forcedId) {
-    const core = d.index.byId.get(forcedId) as CorePart | undefined;
+    const core = ix.byId.get(forcedId) as CorePart | undefined;
     if (!core || !('aeM2' in core)) { d.fails.push('unknown-part'); return; }
     fitTurns(d, core, model, deltaBDesignT);
+    d.corePrice = unitPriceAt(core.tiers, s.annualVolume);
   } else {
-    let core = selectCore(d.index.coresByAp, d.index.coreApM4, ap, s.annualVolume);
-    if (!core) {
+    const prices = d.prices.coresByAp;
+    let c = selectCore(ix.coresByAp, ix.coreApM4, prices, ap);
+    if (c < 0) {
       // Nothing large enough: carry on with the largest core so every figure stays defined.
       d.fails.push('no-core');
-      core = d.index.coresByAp[d.index.coresByAp.length - 1]!;
+      c = ix.coresByAp.length - 1;
     }
-    for (let tries = 0; core && tries < 4; tries++) {
+    for (let tries = 0; c >= 0 && tries < 4; tries++) {
+      const core = ix.coresByAp[c]!;
       fitTurns(d, core, model, deltaBDesignT);
+      d.corePrice = prices[c]!;
       if (d.windowFill <= 1) break;
       // Windings do not fit: move to the next larger area product.
-      core = selectCore(d.index.coresByAp, d.index.coreApM4, core.aeM2 * core.waM2 * (1 + 1e-9), s.annualVolume);
+      c = selectCore(ix.coresByAp, ix.coreApM4, prices, core.aeM2 * core.waM2 * (1 + 1e-9));
     }
   }
   if (!d.core) { d.fails.push('no-core'); return; }
-  const core = d.core!;
+  const core = d.core;
   if (d.windowFill > 1) d.fails.push('windings-do-not-fit');
   if (d.bTransientT > d.bAvailableT) d.fails.push('flux-above-saturation');
   d.lmH = core.alH * d.turnsPrimary * d.turnsPrimary;
   d.llkH = s.leakageRatio * d.lmH;
   // Unipolar schemes start from zero each cycle; bipolar ones swing ±ΔIm/2 (derived).
   d.magnetizingPeakA = (model.bipolarFlux ? 0.5 : 1) * d.kV / (d.lmH * s.fswHz);
-  d.skinDepthM = skinDepthM(s.fswHz, HOT_C);
-  d.strandAwg = awgForMaxDiameter(2 * d.skinDepthM);
+  const sk = skinAt(s.fswHz);
+  d.skinDepthM = sk.depthM;
+  d.strandAwg = sk.awg;
   d.coreLossW = core.veM3 * coreLossDensityWPerM3(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, s.fswHz, d.deltaBT / 2);
 }

@@ -9,11 +9,19 @@ import type { ResetSchemeModel } from '../schemes/types';
 import { copperLossW } from './magnetics';
 import type { Design, LossesW } from './types';
 
+/** A zeroed loss breakdown. */
+export function zeroLosses(): LossesW {
+  return { switchConduction: 0, switching: 0, gateDrive: 0, resetOrClamp: 0, rectifiers: 0, transformer: 0, inductor: 0, total: 0 };
+}
+
 /**
- * Loss breakdown at an input voltage and load fraction (FORMULAS §4). Duty follows
- * D = K/Vin; the inductor is assumed to stay in continuous conduction.
+ * Loss breakdown at an input voltage and load fraction, written into `out` (a new record when
+ * omitted). Duty follows D = K/Vin; the inductor is assumed to stay in continuous conduction.
+ * Terms: conduction Irms²·R, linear V–I overlap and ½·Co(er)·V² switching (Mohan, Undeland &
+ * Robbins, 3rd ed., ch. 2 [M]; Erickson & Maksimović §4.3 [M]), gate charge Qg·Vgs·fs, rectifier
+ * VF·Io or Irms²·R plus recovery, core (Steinmetz) and copper loss, inductor DCR (common practice).
  */
-export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadFraction: number): LossesW {
+export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadFraction: number, out: LossesW = zeroLosses()): LossesW {
   const s = d.spec;
   const fs = s.fswHz;
   const io = s.ioutA * loadFraction;
@@ -24,7 +32,10 @@ export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadF
   const im = d.magnetizingPeakA;
   const ipPk = n * (io + ripple / 2) + im;
   const irms = Math.sqrt(n * n * duty * iL2 + (im * im * duty) / 3);
-  const out: LossesW = { switchConduction: 0, switching: 0, gateDrive: 0, resetOrClamp: 0, rectifiers: 0, transformer: 0, inductor: 0, total: 0 };
+  out.switchConduction = 0;
+  out.switching = 0;
+  out.gateDrive = 0;
+  out.rectifiers = 0;
   const sw = d.mainSwitch;
   const positions = model.seriesSwitches;
   if (sw) {

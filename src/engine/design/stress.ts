@@ -1,6 +1,7 @@
 import { SPIKE_FRACTION, WINDING_CAPACITANCE_F } from '../assumptions';
+import { unitPriceAt } from '../parts/index-library';
 import type { MosfetPart } from '../parts/types';
-import { selectCapacitor, selectMosfet, selectRectifier, selectResistor } from '../parts/select';
+import { picked, selectCapacitor, selectMosfet, selectRectifier, selectResistor } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
 import type { Design } from './types';
 
@@ -14,14 +15,14 @@ export function peakOffStateV(d: Design, model: ResetSchemeModel): number {
 
 /**
  * Unclamped leakage spike Vspike ≈ Ip·√(Llk/C) (energy ½·Llk·Ip² into the node capacitance;
- * derived, FORMULAS §9 item 1).
+ * derived by energy balance; common practice).
  */
 export function leakageSpikeV(primaryPeakA: number, llkH: number, nodeCapF: number): number {
   if (!(nodeCapF > 0)) throw new RangeError(`node capacitance must be positive, got ${nodeCapF} F`);
   return primaryPeakA * Math.sqrt(llkH / nodeCapF);
 }
 
-/** Primary peak and rms current at Vin,min, full load (reflected load + magnetizing; derived, FORMULAS §1.0). */
+/** Primary peak and rms current at Vin,min, full load (reflected load + magnetizing; derived by charge balance). */
 export function designCurrents(d: Design): void {
   const s = d.spec;
   const duty = d.dutyAtVinMin;
@@ -37,11 +38,14 @@ function pickMainSwitch(d: Design, minV: number, forcedId: string | undefined): 
     const m = d.index.byId.get(forcedId) as MosfetPart | undefined;
     d.mainSwitch = m && 'vdsV' in m ? m : null;
     d.mainQty = 1;
+    d.mainPrice = d.mainSwitch ? unitPriceAt(d.mainSwitch.tiers, d.spec.annualVolume) : 0;
     return;
   }
-  const c = selectMosfet(d.index.nMosfets, minV, d.primaryRmsA, d.poutW, d.spec.annualVolume);
-  d.mainSwitch = c ? c.part : null;
-  d.mainQty = c ? c.qty : 1;
+  const list = d.index.nMosfets;
+  const i = selectMosfet(list, d.prices.nMosfets, minV, d.primaryRmsA, d.poutW);
+  d.mainSwitch = i >= 0 ? list[i]! : null;
+  d.mainQty = i >= 0 ? picked.qty : 1;
+  d.mainPrice = i >= 0 ? d.prices.nMosfets[i]! : 0;
 }
 
 /**
@@ -53,7 +57,7 @@ export function designStress(d: Design, model: ResetSchemeModel): void {
   d.switchPeakV = peakOffStateV(d, model);
   d.transientV = Math.max(model.transientV(d), d.switchPeakV);
   const base = Math.max(d.switchPeakV * (1 + model.clampAllowance), d.transientV);
-  const forcedId = s.overrides[d.scheme]?.partIds?.mainSwitch;
+  const forcedId = d.ov?.partIds?.mainSwitch;
   d.spikeV = 0;
   d.snubberNeeded = false;
   if (!model.leakageClamped) {
@@ -75,14 +79,21 @@ export function designStress(d: Design, model: ResetSchemeModel): void {
   if (d.switchRatingV * s.voltageDerating < d.switchStressV * (1 - 1e-9)) d.fails.push('no-switch-for-stress');
 }
 
-/** Snubber (diode + R + C) parts for an unclamped scheme whose leakage spike needs limiting. */
+/** Snubber (diode + R + C) parts for an unclamped scheme whose leakage spike needs limiting (common practice). */
 export function designSnubber(d: Design): void {
   if (!d.snubberNeeded) return;
   const s = d.spec;
+  const ix = d.index;
   const vR = d.switchStressV;
   const pW = 0.5 * d.llkH * d.primaryPeakA * d.primaryPeakA * s.fswHz;
-  d.snubberDiode = selectRectifier(d.index.clampDiodes, vR / s.voltageDerating, pW / Math.max(d.switchPeakV, 1), s.annualVolume)?.part ?? null;
-  d.snubberCap = selectCapacitor(d.index.capacitors, vR / s.voltageDerating, d.snubberCapF, Infinity, s.annualVolume)?.part ?? null;
-  d.snubberRes = selectResistor(d.index.resistors, pW, vR);
+  const di = selectRectifier(ix.clampDiodes, d.prices.clampDiodes, vR / s.voltageDerating, pW / Math.max(d.switchPeakV, 1));
+  d.snubberDiode = di >= 0 ? ix.clampDiodes[di]! : null;
+  d.snubberDiodePrice = di >= 0 ? d.prices.clampDiodes[di]! : 0;
+  const ci = selectCapacitor(ix.capacitors, d.prices.capacitors, vR / s.voltageDerating, d.snubberCapF, Infinity);
+  d.snubberCap = ci >= 0 ? ix.capacitors[ci]! : null;
+  d.snubberCapPrice = ci >= 0 ? d.prices.capacitors[ci]! : 0;
+  const ri = selectResistor(ix.resistors, pW, vR);
+  d.snubberRes = ri >= 0 ? ix.resistors[ri]! : null;
+  d.snubberResPrice = ri >= 0 ? d.prices.resistors[ri]! : 0;
   if (!d.snubberDiode || !d.snubberCap || !d.snubberRes) d.fails.push('no-clamp-part');
 }

@@ -1,5 +1,5 @@
-import type { NormalisedSpec } from '../../schemas/spec';
-import type { LibraryIndex } from '../parts/index-library';
+import type { NormalisedSpec, SchemeOverride } from '../../schemas/spec';
+import type { LibraryIndex, PriceTable } from '../parts/index-library';
 import type { CapacitorPart, CorePart, InductorPart, MosfetPart, RectifierPart, ResistorPart } from '../parts/types';
 import type { SchemeId } from '../scheme-ids';
 
@@ -23,12 +23,17 @@ export interface LossesW {
 
 /**
  * The working record of one scheme evaluation: filled stage by stage by the lean pipeline,
- * read by findings, trace, waveforms and the full result. All numbers SI.
+ * read by findings, trace, waveforms and the full result. All numbers SI. Unit prices of the
+ * chosen parts are kept next to them (0 when none) so that cost needs no price lookups.
  */
 export interface Design {
   scheme: SchemeId;
   spec: NormalisedSpec;
   index: LibraryIndex;
+  /** Unit prices of the index at the spec's annual volume. */
+  prices: PriceTable;
+  /** The spec's overrides for this scheme, if any. */
+  ov: SchemeOverride | undefined;
   poutW: number;
   fails: FailCode[];
   // duty and turns
@@ -51,7 +56,9 @@ export interface Design {
   outputInductanceH: number;
   outputCapacitanceF: number;
   inductor: InductorPart | null;
+  inductorPrice: number;
   outCap: CapacitorPart | null;
+  outCapPrice: number;
   outCapQty: number;
   // rectifiers
   rectForwardV: number;
@@ -59,8 +66,11 @@ export interface Design {
   rectDiode: RectifierPart | null;
   rectSr: MosfetPart | null;
   rectQty: number;
+  /** Unit price of the chosen rectifier (diode or synchronous MOSFET). */
+  rectPrice: number;
   // magnetics
   core: CorePart | null;
+  corePrice: number;
   turnsPrimary: number;
   deltaBT: number;
   bTransientT: number;
@@ -91,17 +101,25 @@ export interface Design {
   switchRatingV: number;
   mainSwitch: MosfetPart | null;
   mainQty: number;
+  mainPrice: number;
   auxSwitch: MosfetPart | null;
+  auxPrice: number;
   auxRmsA: number;
   clampDiode: RectifierPart | null;
   clampDiodeQty: number;
+  clampDiodePrice: number;
   clampCap: CapacitorPart | null;
   clampCapQty: number;
+  clampCapPrice: number;
   clampRes: ResistorPart | null;
+  clampResPrice: number;
   snubberDiode: RectifierPart | null;
+  snubberDiodePrice: number;
   snubberCap: CapacitorPart | null;
+  snubberCapPrice: number;
   snubberCapF: number;
   snubberRes: ResistorPart | null;
+  snubberResPrice: number;
   lowSideDrivers: number;
   highSideDrivers: number;
   // totals at nominal input, full load

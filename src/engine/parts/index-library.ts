@@ -21,6 +21,28 @@ export interface LibraryIndex {
   inductors: InductorPart[];
   drivers: Record<GateDriverPart['kind'], GateDriverPart | undefined>;
   byId: Map<string, unknown>;
+  /** Unit prices resolved per annual volume (see `pricesAt`), most recent first. */
+  priceCache: Map<number, PriceTable>;
+  lastPrices: PriceTable | null;
+}
+
+/**
+ * Unit prices of every indexed list at one annual volume, aligned with the sorted lists of the
+ * index (`nMosfets[i]` costs `nMosfets[i]` of this table), resolved once with `unitPriceAt`.
+ */
+export interface PriceTable {
+  volume: number;
+  nMosfets: Float64Array;
+  pMosfets: Float64Array;
+  srMosfets: Float64Array;
+  rectifiers: Float64Array;
+  clampDiodes: Float64Array;
+  coresByAp: Float64Array;
+  capacitors: Float64Array;
+  resistors: Float64Array;
+  inductors: Float64Array;
+  lowSideDriver: number;
+  highSideDriver: number;
 }
 
 const cache = new WeakMap<PartsLibrary, LibraryIndex>();
@@ -65,6 +87,8 @@ export function indexLibrary(library: PartsLibrary): LibraryIndex {
       isolated: cheapestDriver(library.gateDrivers, 'isolated'),
     },
     byId,
+    priceCache: new Map(),
+    lastPrices: null,
   };
   cache.set(library, index);
   return index;
@@ -82,6 +106,42 @@ export function unitPriceAt(tiersList: PriceTier[], annualVolume: number): numbe
     if (t.minQty <= annualVolume && t.minQty > best) { best = t.minQty; price = t.unitPrice; }
   }
   return price;
+}
+
+const pricesOf = (list: readonly { tiers: PriceTier[] }[], volume: number): Float64Array =>
+  Float64Array.from(list, (p) => unitPriceAt(p.tiers, volume));
+
+/** Most price tables kept per library index (a sweep over volume stays well below this). */
+const PRICE_CACHE_SIZE = 64;
+
+/**
+ * Unit prices of the whole index at an annual volume (same values as `unitPriceAt`, resolved
+ * once per volume and cached on the index; common practice for distributor price breaks).
+ */
+export function pricesAt(index: LibraryIndex, annualVolume: number): PriceTable {
+  const last = index.lastPrices;
+  if (last !== null && last.volume === annualVolume) return last;
+  let table = index.priceCache.get(annualVolume);
+  if (!table) {
+    if (index.priceCache.size >= PRICE_CACHE_SIZE) index.priceCache.clear();
+    table = {
+      volume: annualVolume,
+      nMosfets: pricesOf(index.nMosfets, annualVolume),
+      pMosfets: pricesOf(index.pMosfets, annualVolume),
+      srMosfets: pricesOf(index.srMosfets, annualVolume),
+      rectifiers: pricesOf(index.rectifiers, annualVolume),
+      clampDiodes: pricesOf(index.clampDiodes, annualVolume),
+      coresByAp: pricesOf(index.coresByAp, annualVolume),
+      capacitors: pricesOf(index.capacitors, annualVolume),
+      resistors: pricesOf(index.resistors, annualVolume),
+      inductors: pricesOf(index.inductors, annualVolume),
+      lowSideDriver: index.drivers['low-side'] ? unitPriceAt(index.drivers['low-side'].tiers, annualVolume) : 0,
+      highSideDriver: index.drivers['bootstrap-high-side'] ? unitPriceAt(index.drivers['bootstrap-high-side'].tiers, annualVolume) : 0,
+    };
+    index.priceCache.set(annualVolume, table);
+  }
+  index.lastPrices = table;
+  return table;
 }
 
 /** First index in an ascending list whose key is ≥ `min` (binary search); `list.length` if none. */

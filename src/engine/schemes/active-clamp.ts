@@ -1,5 +1,5 @@
 import { CLAMP_RIPPLE_RATIO, DUTY_MARGIN, WINDING_CAPACITANCE_F } from '../assumptions';
-import { snapUp } from '../eseries';
+import { E6, snapUpIn } from '../eseries';
 import { selectMosfet } from '../parts/select';
 import { chooseClampCap, hotRdsOhm } from './common';
 import type { ResetSchemeModel } from './types';
@@ -65,10 +65,11 @@ export const activeClamp: ResetSchemeModel = {
       : d.switchPeakV;
     d.auxRmsA = d.magnetizingPeakA * Math.sqrt((1 - dMin) / 3);
     const list = highSide ? d.index.nMosfets : d.index.pMosfets;
-    const aux = selectMosfet(list, d.switchStressV / s.voltageDerating, d.auxRmsA, d.poutW, s.annualVolume);
-    if (aux) d.auxSwitch = aux.part; else d.fails.push('no-aux-switch');
+    const prices = highSide ? d.prices.nMosfets : d.prices.pMosfets;
+    const aux = selectMosfet(list, prices, d.switchStressV / s.voltageDerating, d.auxRmsA, d.poutW);
+    if (aux >= 0) { d.auxSwitch = list[aux]!; d.auxPrice = prices[aux]!; } else d.fails.push('no-aux-switch');
     // Cc from the ripple ratio ΔVc/Vc = (1 − D)²/(8·Lm·Cc·fs²) (derived).
-    d.clampCapF = snapUp(((1 - dMin) * (1 - dMin)) / (8 * d.lmH * CLAMP_RIPPLE_RATIO * s.fswHz * s.fswHz), 'E6');
+    d.clampCapF = snapUpIn(((1 - dMin) * (1 - dMin)) / (8 * d.lmH * CLAMP_RIPPLE_RATIO * s.fswHz * s.fswHz), E6);
     chooseClampCap(d, d.clampCapF, d.clampV);
     d.lowSideDrivers = highSide ? 1 : 2;
     d.highSideDrivers = highSide ? 1 : 0;

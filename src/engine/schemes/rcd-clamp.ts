@@ -1,5 +1,5 @@
 import { RCD_CLAMP_MARGIN, RCD_DESIGN_DUTY } from '../assumptions';
-import { snapDown, snapUp } from '../eseries';
+import { E24, E6, snapDownIn, snapUpIn } from '../eseries';
 import { selectResistor } from '../parts/select';
 import { chooseClampCap, chooseClampDiode, vfOf } from './common';
 import type { ResetSchemeModel } from './types';
@@ -52,11 +52,11 @@ export const rcdClamp: ResetSchemeModel = {
   turnOnV: (_d, vinV) => vinV,
   sizeReset(d) {
     const p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, d.primaryPeakA, d.spec.fswHz);
-    d.clampResOhm = snapDown((d.clampV * d.clampV) / p, 'E24');
-    d.clampRes = selectResistor(d.index.resistors, p, d.clampV);
-    if (!d.clampRes) d.fails.push('no-clamp-part');
+    d.clampResOhm = snapDownIn((d.clampV * d.clampV) / p, E24);
+    const r = selectResistor(d.index.resistors, p, d.clampV);
+    if (r >= 0) { d.clampRes = d.index.resistors[r]!; d.clampResPrice = d.prices.resistors[r]!; } else d.fails.push('no-clamp-part');
     // C ≥ Vcl/(R·fs·ΔVcl) with ΔVcl = 10 % of Vcl (derived; ripple share common practice).
-    d.clampCapF = snapUp(1 / (d.clampResOhm * d.spec.fswHz * 0.1), 'E6');
+    d.clampCapF = snapUpIn(1 / (d.clampResOhm * d.spec.fswHz * 0.1), E6);
     chooseClampCap(d, d.clampCapF, d.clampV);
     chooseClampDiode(d, d.spec.vinMaxV + d.clampV, p / d.clampV, 1);
     d.lowSideDrivers = 1;

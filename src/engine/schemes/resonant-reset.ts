@@ -1,5 +1,5 @@
 import { RESONANT_RESET_DUTY, WINDING_CAPACITANCE_F } from '../assumptions';
-import { snapDown } from '../eseries';
+import { E12, snapDownIn } from '../eseries';
 import { chooseClampCap, withMargin } from './common';
 import type { ResetSchemeModel } from './types';
 
@@ -55,7 +55,7 @@ export const resonantReset: ResetSchemeModel = {
     const root = (1 - RESONANT_RESET_DUTY) / (Math.PI * s.fswHz);
     const crTarget = (root * root) / d.lmH;
     const cNode = (d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0) + WINDING_CAPACITANCE_F;
-    d.addedCF = crTarget > cNode ? snapDown(crTarget - cNode, 'E12') : 0;
+    d.addedCF = crTarget > cNode ? snapDownIn(crTarget - cNode, E12) : 0;
     d.resonantCF = cNode + d.addedCF;
     d.resetDutyLimit = resonantDutyLimit(s.fswHz, d.lmH, d.resonantCF);
     if (d.resetDutyLimit < d.dutyAtVinMin) d.fails.push('resonant-reset-incomplete');
