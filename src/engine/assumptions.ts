@@ -1,6 +1,6 @@
 /**
  * Design assumptions the engine applies to every scheme. Each carries its status:
- * [CP] common practice, [M] from memory, [V] seen in a source (see FORMULAS-style tags in README).
+ * [CP] common practice, [M] from memory, [V] seen in a source (tags as listed in src/engine/README.md).
  */
 
 /** Duty margin below a reset-limited duty (e.g. 0.5 → 0.45) for leakage reset time and tolerances. [CP] */

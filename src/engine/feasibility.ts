@@ -34,7 +34,7 @@ function failMessage(code: FailCode, d: Design): string {
 
 /**
  * Findings of one design: every failed limit as `fail`, near-limits as `warn`, scheme notes as
- * `info` (DESIGN.md "The computation" step 9).
+ * `info` (limits and thresholds: see assumptions.ts; common practice).
  */
 export function findingsOf(d: Design, model: ResetSchemeModel): Finding[] {
   const s = d.spec;

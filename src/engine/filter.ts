@@ -1,4 +1,4 @@
-/** Output LC filter of the forward converter (buck-derived), FORMULAS §2. */
+/** Output LC filter of the forward converter (buck-derived; Mohan, Undeland & Robbins ch. 7 [M]). */
 
 /**
  * Inductance for a peak-to-peak ripple at the smallest duty: L = (Vo + VF)·(1 − Dmin)/(ΔIL·fs)

@@ -16,7 +16,7 @@ export interface VinSweepPoint {
 
 /**
  * Duty D = K/Vin and steady switch voltage across the input range for the charts
- * (`points` evenly spaced from vinMinV to vinMaxV, at least 2). Formulas per scheme, FORMULAS §1.
+ * (`points` evenly spaced from vinMinV to vinMaxV, at least 2). Formulas per scheme (derived by volt-second balance).
  */
 export function sweepVin(spec: NormalisedSpec, scheme: SchemeId, points = 41, library: PartsLibrary = demoPartsLibrary): VinSweepPoint[] {
   if (!Number.isInteger(points) || points < 2 || points > 10000) throw new RangeError(`points must be an integer from 2 to 10000, got ${points}`);

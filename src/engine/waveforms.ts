@@ -28,7 +28,7 @@ export interface Waveforms {
 
 const ARC_SAMPLES = 12;
 
-/** Reset interval and shape of the drain voltage during the off time for one scheme (derived, FORMULAS §1). */
+/** Reset interval and shape of the drain voltage during the off time for one scheme (derived by volt-second balance on the magnetizing inductance). */
 function offShape(d: Design, vinV: number, tOffS: number): { tResetS: number; vReset: (x: number) => number; vAfter: number; imAt: (x: number) => number } {
   const model = schemeModel(d.scheme);
   const im = d.magnetizingPeakA;

@@ -1,4 +1,4 @@
-/** Loss terms of power semiconductors (FORMULAS §4). All return watts. */
+/** Loss terms of power semiconductors (sources per function). All return watts. */
 
 /** Conduction loss P = Irms²·R (common practice). */
 export function conductionLossW(irmsA: number, rOhm: number): number {

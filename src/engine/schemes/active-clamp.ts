@@ -22,7 +22,7 @@ export function activeClampOffStateV(vinV: number, kV: number): number {
 /**
  * Active-clamp forward (high-side: N-FET + Cc across the primary, Vc = Vin·D/(1−D);
  * low-side: P-FET + Cc from drain to ground, Vc = Vin/(1−D)). Both switches see Vin/(1−D);
- * flux is bipolar; energy recycled; volt-second clamp assumed for transients (derived; FORMULAS §1.4).
+ * flux is bipolar; energy recycled; volt-second clamp assumed for transients (derived by volt-second balance on Lm and charge balance on Cc).
  */
 export const activeClamp: ResetSchemeModel = {
   id: 'active-clamp',
@@ -41,7 +41,7 @@ export const activeClamp: ResetSchemeModel = {
     transient: 'volt-second clamp assumed: D ≤ K/Vin, so the transient equals the steady worst case',
     forwardReverse: 'VR(D1) = n·Vin·D/(1 − D), largest at low line',
     resetLoss: 'P = Iaux,rms²·Rds,aux, Iaux,rms = (ΔIm/2)·√((1 − D)/3)',
-    source: 'derived (volt-second and charge balance), FORMULAS §1.4',
+    source: 'derived (volt-second balance on Lm; charge balance on Cc)',
   },
   resetDutyLimit: (spec) => spec.maxDuty,
   designDutyLimit: (spec) => Math.min(spec.maxDuty - DUTY_MARGIN, equalStressDuty(spec.vinMinV, spec.vinMaxV)),
@@ -51,7 +51,7 @@ export const activeClamp: ResetSchemeModel = {
   offStateV: (d, vinV) => activeClampOffStateV(vinV, d.kV),
   transientV: (d) => activeClampOffStateV(d.spec.vinMaxV, d.kV),
   turnOnV(d, vinV) {
-    // Partial ZVS: Lm resonance brings the drain to ≈ Vin, leakage energy takes it lower (FORMULAS §1.4).
+    // Partial ZVS: Lm resonance brings the drain to ≈ Vin, leakage energy takes it lower (derived by energy balance).
     const coss = d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0;
     const cEq = 2 * coss + WINDING_CAPACITANCE_F;
     return Math.max(0, vinV - d.magnetizingPeakA * Math.sqrt(d.llkH / cEq));

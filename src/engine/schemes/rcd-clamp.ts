@@ -4,7 +4,7 @@ import { selectResistor } from '../parts/select';
 import { chooseClampCap, chooseClampDiode, vfOf } from './common';
 import type { ResetSchemeModel } from './types';
 
-/** RCD clamp voltage needed at the design duty, with the 20 % margin: Vcl = 1.2·K/(1 − Dlim) (derived, FORMULAS §1.2). */
+/** RCD clamp voltage needed at the design duty, with the 20 % margin: Vcl = 1.2·K/(1 − Dlim) (derived by volt-second balance). */
 function clampRatio(dutyLimit: number): number {
   return (RCD_CLAMP_MARGIN * dutyLimit) / (1 - dutyLimit);
 }

@@ -2,7 +2,7 @@ import { describe, expect, test } from 'vitest';
 import { E12, E24, E6, snapDown, snapUp } from '../../../src/engine/eseries';
 
 describe('IEC 60063 E-series tables', () => {
-  // IEC 60063:2015, E6 / E12 / E24 tables (via two secondary reproductions, FORMULAS.md §6).
+  // IEC 60063:2015, E6 / E12 / E24 tables (via two secondary reproductions).
   test('E6 (IEC 60063:2015, E6)', () => {
     expect(E6).toEqual([1.0, 1.5, 2.2, 3.3, 4.7, 6.8]);
   });
@@ -11,7 +11,7 @@ describe('IEC 60063 E-series tables', () => {
   });
   test('E24 (IEC 60063:2015, E24) — not the rounded geometric series', () => {
     expect(E24).toEqual([1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2, 9.1]);
-    // 2.7 and 8.2 differ from round(10^(k/24), 1) — IEC 60063:2015, E24 (FORMULAS.md §6 note).
+    // 2.7 and 8.2 differ from round(10^(k/24), 1) — IEC 60063:2015, E24.
     expect(Math.round(10 ** (10 / 24) * 10) / 10).toBe(2.6);
     expect(Math.round(10 ** (22 / 24) * 10) / 10).toBe(8.3);
   });
@@ -21,7 +21,7 @@ describe('IEC 60063 E-series tables', () => {
   });
 });
 
-describe('snapping to the series (common practice, FORMULAS.md §6)', () => {
+describe('snapping to the series (common practice)', () => {
   test.each([
     [2.3e-6, 'E12', 2.7e-6],
     [2.2e-6, 'E12', 2.2e-6],

@@ -14,11 +14,11 @@ describe.each([['telecom', TELECOM], ['server', SERVER], ['industrial', INDUSTRI
     expect(r['tertiary-winding']!.switchPeakV / r['two-switch']!.switchPeakV).toBeCloseTo(2, 9);
     expect(r['tertiary-winding']!.dutyLimit).toBeLessThan(0.5);
   });
-  test('active clamp lets duty pass 50 % at lower stress than the 1:1 tertiary (derived, FORMULAS §1.4 and §7)', () => {
+  test('active clamp lets duty pass 50 % at lower stress than the 1:1 tertiary (derived: volt-second balance; common practice)', () => {
     expect(r['active-clamp']!.dutyLimit).toBeGreaterThan(0.5);
     expect(r['active-clamp']!.switchPeakV).toBeLessThan(r['tertiary-winding']!.switchPeakV);
   });
-  test('RCD clamp dissipates energy that two-switch returns (common practice, FORMULAS §7)', () => {
+  test('RCD clamp dissipates energy that two-switch returns (common practice)', () => {
     expect(r['rcd-clamp']!.lossesW.resetOrClamp).toBeGreaterThan(r['two-switch']!.lossesW.resetOrClamp);
   });
   test('resonant reset has the highest steady peak for a given duty (derived; Murakami & Yamasaki 1988 [M])', () => {

@@ -29,7 +29,7 @@ const rawSpec = fc.record({
 const scheme = fc.constantFrom(...SCHEME_IDS);
 
 describe('engine invariants over random valid specs (fast-check)', () => {
-  test('n·D·Vin = Vout + drops at Vin min, nom and max (derived: volt-second balance, FORMULAS §1.0)', () => {
+  test('n·D·Vin = Vout + drops at Vin min, nom and max (derived: volt-second balance)', () => {
     fc.assert(fc.property(rawSpec, scheme, (raw, id) => {
       const d = designScheme(spec(raw), id, index);
       for (const [duty, vin] of [[d.dutyAtVinMin, raw.vinMinV], [d.dutyAtVinNom, raw.vinNomV], [d.dutyAtVinMax, raw.vinMaxV]] as const) {

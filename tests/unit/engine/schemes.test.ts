@@ -24,7 +24,7 @@ describe('duty limits per scheme', () => {
     expect(r.details.resetDutyLimit).toBeCloseTo(reset, 9);
     expect(r.dutyLimit).toBeCloseTo(design, 9);
   });
-  test.each(Object.entries(SPECS))('active clamp on %s: equal-stress duty Vmax/(Vmax + Vmin) (derived, FORMULAS §1.4)', (_name, raw) => {
+  test.each(Object.entries(SPECS))('active clamp on %s: equal-stress duty Vmax/(Vmax + Vmin) (derived: volt-second balance)', (_name, raw) => {
     const r = byScheme(raw)['active-clamp']!;
     expect(r.dutyLimit).toBeCloseTo(Math.min(0.7, raw.vinMaxV / (raw.vinMaxV + raw.vinMinV)), 9);
   });
@@ -44,17 +44,17 @@ describe('switch peak voltage per scheme (steady state, worst over the range)', 
     expect(r['tertiary-winding']!.switchPeakV).toBeCloseTo(2 * raw.vinMaxV, 9);
     // Hart §7.5 [M]: each switch of the two-switch forward sees Vin.
     expect(r['two-switch']!.switchPeakV).toBeCloseTo(raw.vinMaxV, 9);
-    // Derived (FORMULAS §1.2): Vds = Vin + Vcl, Vcl = 1.2·Vin·D/(1 − D) at the design duty.
+    // Derived (volt-second balance): Vds = Vin + Vcl, Vcl = 1.2·Vin·D/(1 − D) at the design duty.
     const rcd = r['rcd-clamp']!;
     expect(rcd.clampCapacitorV).toBeCloseTo((1.2 * rcd.details.voltSecondsV) / (1 - rcd.dutyLimit), 9);
     expect(rcd.switchPeakV).toBeCloseTo(raw.vinMaxV + rcd.clampCapacitorV!, 9);
-    // Derived (FORMULAS §1.4): at the equal-stress duty Vds = Vin,min + Vin,max.
+    // Derived (volt-second balance): at the equal-stress duty Vds = Vin,min + Vin,max.
     expect(r['active-clamp']!.switchPeakV).toBeCloseTo(raw.vinMinV + raw.vinMaxV, 6);
-    // Derived (FORMULAS §1.3): Vds = Vin,max + Vres,pk.
+    // Derived (half-sine volt-seconds): Vds = Vin,max + Vres,pk.
     const rr = r['resonant-reset']!;
     expect(rr.switchPeakV).toBeCloseTo(raw.vinMaxV + rr.details.resonantPeakV!, 9);
   });
-  test('server bus 300–410 V classes: two-switch 500–650 V, active clamp ≈ Vmin + Vmax, tertiary ≥ 2·Vmax (common practice, FORMULAS §5.2)', () => {
+  test('server bus 300–410 V classes: two-switch 500–650 V, active clamp ≈ Vmin + Vmax, tertiary ≥ 2·Vmax (common practice)', () => {
     const r = byScheme(SERVER);
     expect(r['two-switch']!.switchRatingV).toBeGreaterThanOrEqual(500);
     expect(r['two-switch']!.switchRatingV).toBeLessThanOrEqual(650);
@@ -77,22 +77,22 @@ describe('rectifier reverse voltages', () => {
       // Every scheme: D2 blocks n·Vin during the on interval (derived; Mohan, Undeland & Robbins ch. 10 [M]).
       expect(s.rectifierReverseV.freewheel).toBeCloseTo(s.turnsRatio * raw.vinMaxV, 9);
     }
-    // Derived (FORMULAS §1.1): D1 blocks Vin·Ns/Nr = n·Vin for a 1:1 reset winding.
+    // Derived (volt-second balance): D1 blocks Vin·Ns/Nr = n·Vin for a 1:1 reset winding.
     expect(r['tertiary-winding']!.rectifierReverseV.forward).toBeCloseTo(r['tertiary-winding']!.turnsRatio * raw.vinMaxV, 9);
-    // Derived (FORMULAS §1.5): n·Vin.
+    // Derived (volt-second balance): n·Vin.
     expect(r['two-switch']!.rectifierReverseV.forward).toBeCloseTo(r['two-switch']!.turnsRatio * raw.vinMaxV, 9);
-    // Derived (FORMULAS §1.2): n·Vcl.
+    // Derived (volt-second balance): n·Vcl.
     expect(r['rcd-clamp']!.rectifierReverseV.forward).toBeCloseTo(r['rcd-clamp']!.turnsRatio * r['rcd-clamp']!.clampCapacitorV!, 9);
-    // Derived (FORMULAS §1.4): n·Vin·D/(1 − D), largest at low line.
+    // Derived (volt-second balance): n·Vin·D/(1 − D), largest at low line.
     const ac = r['active-clamp']!;
     expect(ac.rectifierReverseV.forward).toBeCloseTo(ac.turnsRatio * raw.vinMinV * ac.duty.atVinMin / (1 - ac.duty.atVinMin), 9);
-    // Derived (FORMULAS §1.3): n·Vres,pk.
+    // Derived (half-sine volt-seconds): n·Vres,pk.
     const rr = r['resonant-reset']!;
     expect(rr.rectifierReverseV.forward).toBeCloseTo(rr.turnsRatio * rr.details.resonantPeakV!, 9);
   });
 });
 
-describe('active clamp U-shape and equal-stress duty (derived, FORMULAS §1.4)', () => {
+describe('active clamp U-shape and equal-stress duty (derived: volt-second balance)', () => {
   test('Vds = Vin²/(Vin − K) has its minimum 4K at Vin = 2K', () => {
     const k = 20;
     expect(activeClampOffStateV(2 * k, k)).toBeCloseTo(4 * k, 12);
@@ -120,7 +120,7 @@ describe('active clamp U-shape and equal-stress duty (derived, FORMULAS §1.4)',
   });
 });
 
-describe('RCD clamp dissipation P = fs·(½·Lm·Im² + ½·Llk·Ip²) (derived, energy balance; FORMULAS §1.2)', () => {
+describe('RCD clamp dissipation P = fs·(½·Lm·Im² + ½·Llk·Ip²) (derived, energy balance)', () => {
   test.each([
     // [Lm, Im, Llk, Ip, fs, expected W]
     [1e-3, 0.5, 0, 0, 100e3, 12.5],
@@ -137,7 +137,7 @@ describe('RCD clamp dissipation P = fs·(½·Lm·Im² + ½·Llk·Ip²) (derived,
   });
 });
 
-describe('resonant-reset peak (derived from half-sine volt-seconds, FORMULAS §1.3)', () => {
+describe('resonant-reset peak (derived from half-sine volt-seconds)', () => {
   test.each([[0.45], [0.5], [0.6]])('at the reset limit Dr = %d the peak is (π/2)·Vin·D/(1 − D)', (dr) => {
     const fs = 100e3;
     const lm = 500e-6;

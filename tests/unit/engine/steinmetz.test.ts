@@ -6,7 +6,7 @@ const K = 3.98;
 const ALPHA = 1.4;
 const BETA = 2.6;
 
-describe('Steinmetz Pv = k·f^α·B̂^β (Steinmetz 1892; three-parameter form [M], FORMULAS.md §3.3)', () => {
+describe('Steinmetz Pv = k·f^α·B̂^β (Steinmetz 1892; three-parameter form [M])', () => {
   test('doubling f multiplies the loss by 2^α (from memory: the form)', () => {
     const p1 = coreLossDensityWPerM3(K, ALPHA, BETA, 100e3, 0.1);
     expect(coreLossDensityWPerM3(K, ALPHA, BETA, 200e3, 0.1) / p1).toBeCloseTo(2 ** ALPHA, 10);

@@ -19,7 +19,7 @@ function average(points: WavePoint[], periodS: number): number {
 
 describe('idealised waveforms', () => {
   const s = spec(TELECOM);
-  test.each(SCHEME_IDS)('%s: transformer volt-second balance over a period (derived, FORMULAS §1.0 core balance)', (id) => {
+  test.each(SCHEME_IDS)('%s: transformer volt-second balance over a period (derived: core volt-second balance)', (id) => {
     const w = waveforms(s, id);
     const onArea = w.secondaryV[1]!.value; // n·Vin during the on time
     const avg = average(w.secondaryV, w.periodS);
