@@ -8,7 +8,8 @@ export interface NavItem {
 
 /** Screens that exist; a screen is listed here only once it works. */
 export const NAV_ITEMS: NavItem[] = [
-  { href: '/', label: 'Overview', capability: 'readSpecs' },
+  { href: '/specs', label: 'Specs', capability: 'readSpecs' },
+  { href: '/compare', label: 'Compare', capability: 'runComparisons' },
   { href: '/team', label: 'Team', capability: 'manageTeam' },
 ];
 

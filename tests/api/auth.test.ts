@@ -65,6 +65,25 @@ describe('sign-in API', () => {
     expect((await blocked.json()).error).toMatch(/Too many failed sign-ins\. Try again in 15 minutes\./);
   });
 
+  it('a plain form post (before the page script loads) signs in and redirects to a local page only', async () => {
+    const form = (fields: Record<string, string>) =>
+      fetch(`${server.url}/api/v1/auth/sign-in`, {
+        method: 'POST', redirect: 'manual',
+        headers: { 'content-type': 'application/x-www-form-urlencoded', origin: server.url },
+        body: new URLSearchParams(fields).toString(),
+      });
+    const ok = await form({ email: 'engineer2@resetwise.example', password: 'resetwise-demo', next: '/specs' });
+    expect(ok.status).toBe(303);
+    expect(ok.headers.get('location')).toBe('/specs');
+    expect(ok.headers.getSetCookie().some((c) => c.startsWith('rw_session='))).toBe(true);
+    const offsite = await form({ email: 'engineer2@resetwise.example', password: 'resetwise-demo', next: '//evil.example/x' });
+    expect(offsite.headers.get('location')).toBe('/');
+    const wrong = await form({ email: 'engineer2@resetwise.example', password: 'nope-nope-nope', next: '/specs' });
+    expect(wrong.status).toBe(303);
+    expect(wrong.headers.get('location')).toBe('/sign-in?error=credentials&next=%2Fspecs');
+    expect(wrong.headers.getSetCookie()).toHaveLength(0);
+  });
+
   it('sign-out ends the session on the server', async () => {
     const cookie = await signIn(server.url, 'engineer@resetwise.example');
     expect((await post('/api/v1/auth/sign-out', {}, { cookie })).status).toBe(200);

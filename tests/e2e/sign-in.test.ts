@@ -3,7 +3,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { startServer, type RunningServer } from '../helpers/server';
-import { launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { islandsHydrated, launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
 import { demoAccounts } from '../../src/demo/accounts';
 
 let server: RunningServer;
@@ -19,16 +19,17 @@ afterAll(async () => {
 
 // What each role's header must list (DESIGN.md roles; screens that exist so far).
 const expectedNav: Record<string, string[]> = {
-  admin: ['Overview', 'Team'],
-  architect: ['Overview'],
-  engineer: ['Overview'],
-  sales: ['Overview'],
+  admin: ['Specs', 'Compare', 'Team'],
+  architect: ['Specs', 'Compare'],
+  engineer: ['Specs', 'Compare'],
+  sales: ['Specs'],
 };
 
 describe('signing in through the browser', () => {
   it('the sign-in page lists the demo accounts and marks the workspace fictional', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
     await page.goto(`${server.url}/sign-in`);
+    await islandsHydrated(page);
     await expect.poll(() => page.locator('[data-demo-notice]').textContent()).toMatch(/fictional/);
     for (const account of demoAccounts) await page.getByText(account.email).waitFor();
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'sign-in.png'), fullPage: true });
@@ -38,6 +39,7 @@ describe('signing in through the browser', () => {
   it('shows a plain message for a wrong password', async () => {
     const page = await browser.newPage();
     await page.goto(`${server.url}/sign-in`);
+    await islandsHydrated(page);
     await page.getByLabel('E-mail').fill('architect@resetwise.example');
     await page.getByLabel('Password').fill('not-the-password');
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -51,6 +53,7 @@ describe('signing in through the browser', () => {
     const page = await context.newPage();
     await page.goto(`${server.url}/team`);
     await page.waitForURL(/\/sign-in\?next=%2Fteam/);
+    await islandsHydrated(page);
     await page.getByLabel('E-mail').fill(email);
     await page.getByLabel('Password').fill('resetwise-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -65,9 +68,11 @@ describe('signing in through the browser', () => {
       await page.getByRole('heading', { name: 'Your role does not open this screen' }).waitFor();
     }
     await page.goto(`${server.url}/`);
+    await page.waitForURL((url) => url.pathname === '/specs');
     await page.locator('[data-spec-table]').waitFor();
     expect(await page.locator('[data-safety-caution]').count()).toBe(1);
-    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `overview-${role}.png`), fullPage: true });
+    expect(await page.getByRole('link', { name: 'New requirement set' }).count()).toBe(role === 'admin' || role === 'architect' ? 1 : 0);
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, `specs-${role}.png`), fullPage: true });
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in\?signedOut=1/);
     await page.goto(`${server.url}/`);
@@ -79,11 +84,13 @@ describe('signing in through the browser', () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     await page.goto(`${server.url}/sign-in`);
+    await islandsHydrated(page);
     await page.getByLabel('E-mail').fill('admin@resetwise.example');
     await page.getByLabel('Password').fill('resetwise-demo');
     await page.keyboard.press('Enter');
-    await page.waitForURL(`${server.url}/`);
+    await page.waitForURL(`${server.url}/specs`);
     await page.goto(`${server.url}/team`);
+    await islandsHydrated(page);
     await page.getByLabel('Display name').fill('Rosa Lindqvist');
     await page.getByLabel('E-mail').fill('not-an-email');
     await page.getByLabel('Initial password (10+ characters)').fill('rosa-password-1');

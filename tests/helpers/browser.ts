@@ -14,3 +14,8 @@ export async function launchBrowser(): Promise<Browser> {
 }
 
 export const SCREENSHOT_DIR = path.resolve('test-output/screenshots');
+
+/** Astro removes the `ssr` attribute from an island once React has hydrated it. */
+export async function islandsHydrated(page: import('playwright-core').Page): Promise<void> {
+  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0);
+}

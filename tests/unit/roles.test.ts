@@ -37,10 +37,11 @@ describe('role helper', () => {
     else expect((result as Response).status).toBe(403);
   });
 
-  it('navigation shows Team to admins only', () => {
+  it('navigation: Team for admins only, Compare for everyone who runs comparisons', () => {
     for (const role of ROLES) {
       expect(navFor(role).some((item) => item.href === '/team')).toBe(role === 'admin');
-      expect(navFor(role)[0]?.href).toBe('/');
+      expect(navFor(role)[0]?.href).toBe('/specs');
+      expect(navFor(role).some((item) => item.href === '/compare')).toBe(role !== 'sales');
     }
   });
 });

@@ -10,6 +10,8 @@ interface Props {
   next: string;
   demoLogins: DemoLogin[];
   demoPassword: string | null;
+  /** Message from a plain form post that came back (before the script had loaded). */
+  initialError: string | null;
 }
 
 interface Problem {
@@ -19,14 +21,14 @@ interface Problem {
 
 /** Only same-site paths are followed after sign-in (no open redirect). */
 function safeNext(next: string): string {
-  return next.startsWith('/') && !next.startsWith('//') ? next : '/';
+  return next.startsWith('/') && !next.startsWith('//') && !next.startsWith('/\\') ? next : '/';
 }
 
-export default function SignInForm({ next, demoLogins, demoPassword }: Props) {
+export default function SignInForm({ next, demoLogins, demoPassword, initialError }: Props) {
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
   const [busy, setBusy] = useState(false);
-  const [problem, setProblem] = useState<Problem | null>(null);
+  const [problem, setProblem] = useState<Problem | null>(initialError ? { error: initialError } : null);
 
   const fieldError = (name: string) => problem?.fields?.find((f) => f.field === name)?.message;
 
@@ -53,7 +55,9 @@ export default function SignInForm({ next, demoLogins, demoPassword }: Props) {
 
   return (
     <div className="space-y-6">
-      <form onSubmit={submit} className="space-y-4" noValidate>
+      {/* Works as a plain form post too, so a click before the script loads still signs in. */}
+      <form onSubmit={submit} method="post" action="/api/v1/auth/sign-in" className="space-y-4" noValidate>
+        <input type="hidden" name="next" value={safeNext(next)} />
         <div>
           <label className="label" htmlFor="email">E-mail</label>
           <input

@@ -12,6 +12,9 @@ export interface SpecRow {
   switching: string;
   maxInputV: number;
   updated: string;
+  version: number;
+  archived: boolean;
+  requirements: Record<string, unknown>;
 }
 
 const num = (value: unknown): number => (typeof value === 'number' && Number.isFinite(value) ? value : Number.NaN);
@@ -31,6 +34,9 @@ export function toSpecRow(spec: SpecSummary): SpecRow {
     power: formatSi(vout * iout, 'W'),
     switching: formatSi(num(r.fswHz), 'Hz'),
     maxInputV: num(r.vinMaxV),
-    updated: spec.updatedAt.toISOString().slice(0, 10),
+    updated: spec.updatedAt.toISOString(),
+    version: spec.version,
+    archived: spec.archivedAt !== null,
+    requirements: spec.requirements,
   };
 }

@@ -14,14 +14,16 @@ interface Props {
   level?: 3 | 4;
   /** Render without the card border (panels inside another card). */
   bare?: boolean;
+  /** Stable name for tests and print styles (`data-chart`). */
+  name?: string;
 }
 
 /** A titled chart with a one-line caption; keeps together on a printed page. */
-export function ChartCard({ title, caption, children, chart, height = 240, className = '', level = 3, bare = false }: Props) {
+export function ChartCard({ title, caption, children, chart, height = 240, className = '', level = 3, bare = false, name }: Props) {
   const id = useId();
   const Heading = level === 3 ? 'h3' : 'h4';
   return (
-    <section aria-labelledby={id} className={`${bare ? '' : 'card p-3'} flex min-w-0 flex-col gap-2 break-inside-avoid ${className}`}>
+    <section aria-labelledby={id} data-chart={name} className={`${bare ? '' : 'card p-3'} flex min-w-0 flex-col gap-2 break-inside-avoid ${className}`}>
       <div>
         <Heading id={id} className={level === 3 ? 'text-sm font-semibold text-ink' : 'text-xs font-semibold text-ink'}>
           {title}

@@ -82,6 +82,7 @@ export default function CompareCharts({ comparison }: Props) {
   return (
     <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
       <ChartCard
+        name="switch-stress"
         title="Switch voltage across the input range"
         caption={`Main switch off-state voltage, steady state over ${range} (leakage spike and high-line transient not shown); thin dotted line: chosen voltage rating.`}
         chart={<LineChartBox series={stress} axes={axes.stress} ariaLabel={`Switch peak voltage against input voltage for ${comparison.results.length} schemes`} />}
@@ -89,6 +90,7 @@ export default function CompareCharts({ comparison }: Props) {
         <LineLegend entries={stress.legend} />
       </ChartCard>
       <ChartCard
+        name="duty"
         title="Duty across the input range"
         caption={`Duty in regulation, D = K / Vin, over ${range}; thin dotted line: the scheme's duty limit (reset or controller).`}
         chart={<LineChartBox series={duty} axes={axes.duty} ariaLabel={`Duty against input voltage for ${comparison.results.length} schemes`} />}
@@ -96,12 +98,14 @@ export default function CompareCharts({ comparison }: Props) {
         <LineLegend entries={duty.legend} />
       </ChartCard>
       <ChartCard
+        name="losses"
         title="Loss breakdown"
         caption={`Power-stage losses at Vin,nom = ${formatVolts(spec.vinNomV)}, full load, steady state; total above each bar.`}
         height={280}
         chart={<Bar data={loss} options={barOptions.loss} plugins={lossTotals} role="img" aria-label="Loss breakdown per scheme in watts" />}
       />
       <ChartCard
+        name="cost"
         title="BOM cost breakdown"
         caption={`Power-stage parts at ${spec.annualVolume.toLocaleString('en')} pcs/year from ${comparison.partsLibrary.name}; total above each bar, in ${cost.currency}.`}
         height={280}

@@ -1,39 +1,30 @@
 import type { APIRoute } from 'astro';
-import { getApp } from '../../../../lib/server/app';
-import { startSession } from '../../../../lib/server/auth';
 import { json, problem, readJson } from '../../../../lib/server/http';
-import { verifyAgainstDummy, verifyPassword } from '../../../../lib/server/password';
 import { signInSchema } from '../../../../schemas/auth';
-import { findUserByEmail, normaliseEmail } from '../../../../db/queries/users';
-import { recordAudit } from '../../../../db/queries/audit';
+import { safeNext, signIn } from '../../../../features/auth/sign-in.server';
 
-/** `{email, password}` → session cookie. Throttled per account and per address. */
+const isForm = (request: Request): boolean => (request.headers.get('content-type') ?? '').includes('application/x-www-form-urlencoded');
+
+/**
+ * `{email, password}` → session cookie (JSON). The sign-in page's form also posts here as a
+ * plain form before its script has loaded; that gets redirects instead of JSON.
+ */
 export const POST: APIRoute = async (context) => {
+  if (isForm(context.request)) {
+    const form = await context.request.formData();
+    const next = safeNext(form.get('next'));
+    const parsed = signInSchema.safeParse({ email: form.get('email'), password: form.get('password') });
+    const back = (error: string) => context.redirect(`/sign-in?error=${error}&next=${encodeURIComponent(next)}`, 303);
+    if (!parsed.success) return back('invalid');
+    const outcome = await signIn(context, parsed.data);
+    if (!outcome.ok) return back(outcome.status === 429 ? 'throttled' : 'credentials');
+    return context.redirect(next, 303);
+  }
   const body = await readJson(context.request, signInSchema);
   if (!body.ok) return body.response;
-  const { db, auth, throttle } = await getApp();
-  const accountKey = normaliseEmail(body.data.email);
-  const addressKey = context.clientAddress;
-  const waitMs = Math.max(throttle.account.retryAfterMs(accountKey), throttle.address.retryAfterMs(addressKey));
-  if (waitMs > 0) {
-    const minutes = Math.ceil(waitMs / 60_000);
-    return problem(429, `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, undefined, {
-      'retry-after': String(Math.ceil(waitMs / 1000)),
-    });
+  const outcome = await signIn(context, body.data);
+  if (!outcome.ok) {
+    return problem(outcome.status, outcome.message, undefined, outcome.retryAfterS ? { 'retry-after': String(outcome.retryAfterS) } : undefined);
   }
-  const user = await findUserByEmail(db, body.data.email);
-  const valid = user?.active ? await verifyPassword(user.passwordHash, body.data.password) : await verifyAgainstDummy(body.data.password);
-  if (!user || !valid) {
-    throttle.account.recordFailure(accountKey);
-    throttle.address.recordFailure(addressKey);
-    return problem(401, 'The e-mail or password is wrong, or the account is deactivated.');
-  }
-  throttle.account.reset(accountKey);
-  // A fresh session every sign-in; any session the browser brought along ends here.
-  if (context.locals.sessionId) await auth.invalidateSession(context.locals.sessionId);
-  const { token } = await startSession(auth, user.id);
-  const cookie = auth.createSessionCookie(token);
-  context.cookies.set(cookie.name, cookie.value, cookie.attributes);
-  await recordAudit(db, { actorId: user.id, action: 'user.signed-in', entityType: 'user', entityId: user.id, details: { address: addressKey } });
-  return json({ user: { id: user.id, email: user.email, name: user.displayName, role: user.role } });
+  return json({ user: outcome.user });
 };

@@ -1,0 +1,30 @@
+import { useStore } from '@nanostores/react';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
+import { $evaluation } from '../../stores/evaluation';
+import { markRendered } from '../../lib/perf';
+import { ensureLoaded, type CompareInitial } from './init';
+
+// Chart.js is most of the page's script; it loads when the charts come near the viewport.
+const CompareCharts = lazy(() => import('./charts/CompareCharts'));
+
+/** The charts island: follows the live comparison like the cards. */
+export default function ChartsPanel({ initial }: { initial: CompareInitial }) {
+  ensureLoaded(initial);
+  const { comparison, current } = useStore($evaluation);
+  const anchor = useRef<HTMLDivElement>(null);
+  const [near, setNear] = useState(false);
+  useEffect(() => {
+    if (near || !anchor.current) return;
+    const observer = new IntersectionObserver((entries) => entries.some((e) => e.isIntersecting) && setNear(true), { rootMargin: '400px' });
+    observer.observe(anchor.current);
+    return () => observer.disconnect();
+  }, [near]);
+  useEffect(() => markRendered('charts'), [comparison]);
+  if (!comparison) return null;
+  const waiting = <p className="card p-6 text-sm text-muted">Drawing the charts…</p>;
+  return (
+    <div ref={anchor} className={current ? '' : 'opacity-55'} data-charts>
+      {near ? <Suspense fallback={waiting}><CompareCharts comparison={comparison} /></Suspense> : waiting}
+    </div>
+  );
+}

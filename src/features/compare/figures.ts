@@ -1,0 +1,47 @@
+import type { SchemeResult } from '../../engine';
+import { formatPercent, formatSi } from '../../lib/si';
+
+export interface Figure {
+  label: string;
+  /** Key into `result.trace` for the formula, inputs and source. */
+  traceKey?: string;
+  value(result: SchemeResult): string | null;
+}
+
+const v = (x: number | null | undefined, unit: string, digits = 3): string | null =>
+  x === null || x === undefined || !Number.isFinite(x) ? null : formatSi(x, unit, digits);
+const duty = (x: number): string => formatPercent(x, 3);
+
+/** The key figures on each scheme card, in reading order, each with its unit. */
+export const FIGURES: Figure[] = [
+  { label: 'Turns ratio Ns/Np', traceKey: 'turnsRatio', value: (r) => r.turnsRatio.toPrecision(3) },
+  { label: 'Reset turns Nr/Np', value: (r) => (r.resetTurnsRatio === null ? null : r.resetTurnsRatio.toPrecision(3)) },
+  { label: 'Duty limit', traceKey: 'dutyLimit', value: (r) => duty(r.dutyLimit) },
+  { label: 'Duty at Vin min / nom / max', traceKey: 'duty.atVinMin', value: (r) => `${duty(r.duty.atVinMin)} / ${duty(r.duty.atVinNom)} / ${duty(r.duty.atVinMax)}` },
+  { label: 'Switch peak (steady)', traceKey: 'switchPeakV', value: (r) => v(r.switchPeakV, 'V') },
+  { label: 'Switch design stress', traceKey: 'switchStressV', value: (r) => v(r.switchStressV, 'V') },
+  { label: 'Switch rating', traceKey: 'switchRatingV', value: (r) => (r.switchRatingV === null ? 'none fits' : `${v(r.switchRatingV, 'V')} × ${r.switchCount}`) },
+  { label: 'Clamp voltage', traceKey: 'clampCapacitorV', value: (r) => v(r.clampCapacitorV, 'V') },
+  { label: 'Rectifier VR forward', traceKey: 'rectifierReverseV.forward', value: (r) => v(r.rectifierReverseV.forward, 'V') },
+  { label: 'Rectifier VR freewheel', traceKey: 'rectifierReverseV.freewheel', value: (r) => v(r.rectifierReverseV.freewheel, 'V') },
+  { label: 'Magnetizing peak', traceKey: 'magnetizingPeakA', value: (r) => v(r.magnetizingPeakA, 'A') },
+  { label: 'Primary RMS', traceKey: 'primaryRmsA', value: (r) => v(r.primaryRmsA, 'A') },
+  { label: 'Output L / C', traceKey: 'outputInductanceH', value: (r) => `${v(r.outputInductanceH, 'H', 2)} / ${v(r.outputCapacitanceF, 'F', 2)}` },
+  { label: 'Core, Np, ΔB', traceKey: 'core.deltaBT', value: (r) => (r.core.partId ? `${r.core.partId.replace(/^demo-core-/, '').toUpperCase()}, ${r.core.turnsPrimary} t, ${v(r.core.deltaBT, 'T')}` : 'none fits') },
+  { label: 'Core loss', traceKey: 'core.coreLossW', value: (r) => v(r.core.coreLossW, 'W') },
+  { label: 'Reset / clamp loss', traceKey: 'lossesW.resetOrClamp', value: (r) => v(r.lossesW.resetOrClamp, 'W') },
+  { label: 'Total losses', value: (r) => v(r.lossesW.total, 'W') },
+  { label: 'Efficiency', traceKey: 'efficiency', value: (r) => formatPercent(r.efficiency, 3) },
+  { label: 'Part count', value: (r) => `${r.partCount}` },
+  { label: 'BOM cost', traceKey: 'bomCost', value: (r) => `${r.bomCost.toFixed(2)} ${r.currency}` },
+];
+
+export type Verdict = 'feasible' | 'marginal' | 'not-feasible';
+
+/** Feasible with no warning; marginal when something is near a limit; not feasible on any fail. */
+export function verdictOf(result: SchemeResult): Verdict {
+  if (!result.feasible) return 'not-feasible';
+  return result.findings.some((f) => f.severity === 'warn') ? 'marginal' : 'feasible';
+}
+
+export const VERDICT_LABELS: Record<Verdict, string> = { feasible: 'Feasible', marginal: 'Marginal', 'not-feasible': 'Not feasible' };
