@@ -11,16 +11,18 @@ export interface Figure {
 const v = (x: number | null | undefined, unit: string, digits = 3): string | null =>
   x === null || x === undefined || !Number.isFinite(x) ? null : formatSi(x, unit, digits);
 const duty = (x: number): string => formatPercent(x, 3);
+/** A duty as a bare percentage number, one decimal: 0.3462 → "34.6". */
+const pct = (x: number): string => (x * 100).toFixed(1);
 
 /** The key figures on each scheme card, in reading order, each with its unit. */
 export const FIGURES: Figure[] = [
   { label: 'Turns ratio Ns/Np', traceKey: 'turnsRatio', value: (r) => r.turnsRatio.toPrecision(3) },
   { label: 'Reset turns Nr/Np', value: (r) => (r.resetTurnsRatio === null ? null : r.resetTurnsRatio.toPrecision(3)) },
   { label: 'Duty limit', traceKey: 'dutyLimit', value: (r) => duty(r.dutyLimit) },
-  { label: 'Duty at Vin min / nom / max', traceKey: 'duty.atVinMin', value: (r) => `${duty(r.duty.atVinMin)} / ${duty(r.duty.atVinNom)} / ${duty(r.duty.atVinMax)}` },
+  { label: 'Duty at Vin min/nom/max', traceKey: 'duty.atVinMin', value: (r) => `${pct(r.duty.atVinMin)} / ${pct(r.duty.atVinNom)} / ${pct(r.duty.atVinMax)} %` },
   { label: 'Switch peak (steady)', traceKey: 'switchPeakV', value: (r) => v(r.switchPeakV, 'V') },
   { label: 'Switch design stress', traceKey: 'switchStressV', value: (r) => v(r.switchStressV, 'V') },
-  { label: 'Switch rating', traceKey: 'switchRatingV', value: (r) => (r.switchRatingV === null ? 'none fits' : `${v(r.switchRatingV, 'V')} × ${r.switchCount}`) },
+  { label: 'Switch rating', traceKey: 'switchRatingV', value: (r) => (r.switchRatingV === null ? 'none fits' : `${r.switchRatingV.toFixed(0)} V${r.switchCount > 1 ? `, ${r.switchCount} switches` : ''}`) },
   { label: 'Clamp voltage', traceKey: 'clampCapacitorV', value: (r) => v(r.clampCapacitorV, 'V') },
   { label: 'Rectifier VR forward', traceKey: 'rectifierReverseV.forward', value: (r) => v(r.rectifierReverseV.forward, 'V') },
   { label: 'Rectifier VR freewheel', traceKey: 'rectifierReverseV.freewheel', value: (r) => v(r.rectifierReverseV.freewheel, 'V') },
