@@ -40,7 +40,11 @@ export function chooseRectifier(d: Design, model: ResetSchemeModel): void {
   const vr = Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating;
   const dutyWorst = Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV);
   if (forcedId) {
-    const forced = d.index.byId.get(forcedId) as (MosfetPart & RectifierPart) | undefined;
+    const part = d.index.byId.get(forcedId);
+    // The forced part must be of the kind the rectifier setting asks for, or it is an unknown part.
+    const kindList: readonly unknown[] = s.rectifier === 'synchronous' ? d.index.srMosfets : d.index.rectifiers;
+    const forced = part && kindList.includes(part) ? (part as MosfetPart & RectifierPart) : undefined;
+    if (!forced) d.fails.push('unknown-part');
     if (s.rectifier === 'synchronous') d.rectSr = forced ?? null; else d.rectDiode = forced ?? null;
     d.rectQty = 1;
     d.rectPrice = forced ? unitPriceAt(forced.tiers, s.annualVolume) : 0;
