@@ -11,6 +11,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/specs', label: 'Specs', capability: 'readSpecs' },
   { href: '/compare', label: 'Compare', capability: 'runComparisons' },
   { href: '/team', label: 'Team', capability: 'manageTeam' },
+  { href: '/outbox', label: 'Outbox', capability: 'readOutbox' },
 ];
 
 export function navFor(role: Role): NavItem[] {

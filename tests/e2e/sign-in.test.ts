@@ -19,7 +19,7 @@ afterAll(async () => {
 
 // What each role's header must list (DESIGN.md roles; screens that exist so far).
 const expectedNav: Record<string, string[]> = {
-  admin: ['Specs', 'Compare', 'Team'],
+  admin: ['Specs', 'Compare', 'Team', 'Outbox'],
   architect: ['Specs', 'Compare'],
   engineer: ['Specs', 'Compare'],
   sales: ['Specs'],

@@ -4,11 +4,13 @@ import { config } from './config';
 import { createAuth, type Auth } from './auth';
 import { hashPassword } from './password';
 import { createSignInThrottle, type SignInThrottle } from './throttle';
+import { createMailer, type Mailer } from './mail';
 
 export interface AppContext {
   db: Db;
   auth: Auth;
   throttle: SignInThrottle;
+  mailer: Mailer;
   demo: boolean;
 }
 
@@ -22,7 +24,8 @@ export function getApp(): Promise<AppContext> {
   app ??= (async () => {
     const { db } = await openDatabase({ databaseUrl: config.databaseUrl, dataDir: config.dataDir });
     if (config.demo) await seedDemo(db, hashPassword);
-    return { db, auth: createAuth(db, { secureCookie: config.secureCookie }), throttle: createSignInThrottle(), demo: config.demo };
+    const mailer = await createMailer(db, config.mail);
+    return { db, auth: createAuth(db, { secureCookie: config.secureCookie }), throttle: createSignInThrottle(), mailer, demo: config.demo };
   })().catch((error: unknown) => {
     app = undefined; // let the next request retry instead of caching the failure
     throw error;

@@ -1,4 +1,7 @@
-import { COOKIE_SECURE, DATABASE_URL, DATA_DIR, PUBLIC_ORIGIN, RESETWISE_DEMO } from 'astro:env/server';
+import {
+  COOKIE_SECURE, DATABASE_URL, DATA_DIR, MAIL_FROM, PUBLIC_ORIGIN, RESETWISE_DEMO,
+  SMTP_HOST, SMTP_PASSWORD, SMTP_PORT, SMTP_SECURE, SMTP_USER,
+} from 'astro:env/server';
 
 /** The app's run-time configuration, read once from the environment through astro:env. */
 export const config = {
@@ -9,4 +12,14 @@ export const config = {
   publicOrigin: PUBLIC_ORIGIN || undefined,
   /** `auto`: Secure cookies in production builds, plain in `astro dev`. */
   secureCookie: COOKIE_SECURE === 'auto' ? import.meta.env.PROD : COOKIE_SECURE === '1',
+  mail: {
+    host: SMTP_HOST || undefined,
+    port: SMTP_PORT,
+    user: SMTP_USER || undefined,
+    password: SMTP_PASSWORD || undefined,
+    secure: SMTP_SECURE === '1',
+    from: MAIL_FROM,
+    /** Demo and development mode capture mail locally instead of sending it. */
+    capture: RESETWISE_DEMO !== '0' || import.meta.env.DEV,
+  },
 } as const;
