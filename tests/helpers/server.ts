@@ -24,12 +24,13 @@ async function freePort(): Promise<number> {
 }
 
 /**
- * Starts the built server (dist/) on a free loopback port with a temporary data folder and
+ * Starts the built server (dist/, or RESETWISE_DIST) on a free loopback port with a temporary data folder and
  * waits until it answers /api/v1/health. `npm test` builds first.
  */
 export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
-  const entry = path.resolve('dist/server/entry.mjs');
-  if (!existsSync(entry)) throw new Error('dist/server/entry.mjs is missing: run `npm run build` (npm test does it)');
+  // RESETWISE_DIST lets a developer test a build made with `astro build --outDir …`.
+  const entry = path.resolve(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
+  if (!existsSync(entry)) throw new Error(`${entry} is missing: run \`npm run build\` (npm test does it)`);
   const port = await freePort();
   const dataDir = env.DATA_DIR ?? mkdtempSync(path.join(tmpdir(), 'resetwise-test-'));
   let log = '';
