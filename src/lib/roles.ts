@@ -26,6 +26,7 @@ export const CAPABILITIES = {
   editParts: ['admin'],
   importSpecs: ['admin', 'architect', 'sales'],
   vote: ['admin', 'architect', 'engineer'],
+  readBriefs: ['admin', 'architect', 'engineer', 'sales'],
   writeBriefs: ['admin', 'architect', 'sales'],
   readOutbox: ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
