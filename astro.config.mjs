@@ -26,6 +26,7 @@ export default defineConfig({
       SMTP_USER: envField.string({ context: 'server', access: 'secret', optional: true }),
       SMTP_PASSWORD: envField.string({ context: 'server', access: 'secret', optional: true }),
       SMTP_SECURE: envField.enum({ context: 'server', access: 'secret', values: ['0', '1'], default: '0' }),
+      PORT: envField.number({ context: 'server', access: 'secret', default: 4321 }),
       MAIL_FROM: envField.string({ context: 'server', access: 'secret', default: 'Resetwise <noreply@resetwise.example>' }),
     },
   },

@@ -10,6 +10,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: '/specs', label: 'Specs', capability: 'readSpecs' },
   { href: '/compare', label: 'Compare', capability: 'runComparisons' },
+  { href: '/shortlists', label: 'Shortlists', capability: 'readSpecs' },
   { href: '/team', label: 'Team', capability: 'manageTeam' },
   { href: '/outbox', label: 'Outbox', capability: 'readOutbox' },
 ];

@@ -95,3 +95,12 @@ export async function updateUser(
     return row;
   });
 }
+
+/** Members who may be invited to a ballot: active engineers and architects. */
+export async function listEligibleVoters(db: Db): Promise<{ id: string; name: string; role: string }[]> {
+  return db
+    .select({ id: users.id, name: users.displayName, role: users.role })
+    .from(users)
+    .where(sql`${users.active} and ${users.role} in ('engineer', 'architect')`)
+    .orderBy(asc(users.displayName));
+}

@@ -1,5 +1,5 @@
 import {
-  COOKIE_SECURE, DATABASE_URL, DATA_DIR, MAIL_FROM, PUBLIC_ORIGIN, RESETWISE_DEMO,
+  COOKIE_SECURE, DATABASE_URL, DATA_DIR, MAIL_FROM, PORT, PUBLIC_ORIGIN, RESETWISE_DEMO,
   SMTP_HOST, SMTP_PASSWORD, SMTP_PORT, SMTP_SECURE, SMTP_USER,
 } from 'astro:env/server';
 
@@ -10,6 +10,8 @@ export const config = {
   demo: RESETWISE_DEMO !== '0',
   /** Extra origin allowed to send writes (the public URL behind a reverse proxy). */
   publicOrigin: PUBLIC_ORIGIN || undefined,
+  /** Base of absolute links in e-mail: PUBLIC_ORIGIN, else this server on localhost. */
+  linkOrigin: (PUBLIC_ORIGIN || `http://localhost:${PORT}`).replace(/\/$/, ''),
   /** `auto`: Secure cookies in production builds, plain in `astro dev`. */
   secureCookie: COOKIE_SECURE === 'auto' ? import.meta.env.PROD : COOKIE_SECURE === '1',
   mail: {
