@@ -4,6 +4,8 @@ import { specs, users } from './schema';
 import { recordAudit } from './queries/audit';
 import { demoAccounts, DEMO_PASSWORD } from '../demo/accounts';
 import { demoSpecs } from '../demo/specs';
+import { seedLibraryIfEmpty } from './queries/parts';
+import { SEED_SUMMARY, seedLibraryJson } from '../features/parts/seed-library';
 
 export interface SeedReport {
   usersAdded: number;
@@ -39,6 +41,8 @@ export async function seedDemo(db: Db, hashPassword: (password: string) => Promi
         .returning({ id: specs.id });
       specsAdded += added.length;
     }
+    // Version 1 of the parts library: the engine's invented demo parts (a no-op once any version exists).
+    await seedLibraryIfEmpty(tx, seedLibraryJson(), SEED_SUMMARY);
     if (usersAdded + specsAdded > 0) {
       await recordAudit(tx, { actorId: null, action: 'demo.seeded', entityType: 'workspace', details: { usersAdded, specsAdded } });
     }

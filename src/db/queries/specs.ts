@@ -72,12 +72,16 @@ export interface SpecWrite {
   engineVersion: string;
 }
 
-export async function createSpec(db: Db, input: SpecWrite, actorId: string): Promise<string> {
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+/** Creates a set; `alongside` writes related rows (e.g. the imported file) in the same transaction. */
+export async function createSpec(db: Db, input: SpecWrite, actorId: string, alongside?: (tx: Tx, specId: string) => Promise<void>): Promise<string> {
   const id = newId();
   const now = new Date();
   await db.transaction(async (tx) => {
     await tx.insert(specs).values({ id, ...input, ownerId: actorId, updatedById: actorId, evaluatedAt: now, createdAt: now, updatedAt: now });
     await recordAudit(tx, { actorId, action: 'spec.created', entityType: 'spec', entityId: id, details: { name: input.name } });
+    if (alongside) await alongside(tx, id);
   });
   return id;
 }

@@ -1,11 +1,13 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
 import { evaluateNormalised } from '../../../engine';
+import { getApp } from '../../../lib/server/app';
 import { authorize } from '../../../lib/server/guard';
 import { json, problem, readJson } from '../../../lib/server/http';
 import { parseSpecInput } from '../../../schemas/spec';
+import { currentLibrary } from '../../../features/parts/library.server';
 
-/** A requirement set in, the comparison out: the same output as `npm run evaluate`. */
+/** A requirement set in, the comparison out against the workspace's current parts library. */
 export const POST: APIRoute = async ({ locals, request }) => {
   const user = authorize(locals);
   if (user instanceof Response) return user;
@@ -13,5 +15,7 @@ export const POST: APIRoute = async ({ locals, request }) => {
   if (!body.ok) return body.response;
   const parsed = parseSpecInput(body.data);
   if (!parsed.ok) return problem(400, 'Some fields are not valid.', parsed.errors);
-  return json(evaluateNormalised(parsed.value));
+  const { db } = await getApp();
+  const { library } = await currentLibrary(db);
+  return json(evaluateNormalised(parsed.value, library));
 };

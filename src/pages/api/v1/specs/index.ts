@@ -28,7 +28,7 @@ export const POST: APIRoute = async ({ locals, request }) => {
   const requirements = checkRequirements(body.data.requirements);
   if (!requirements.ok) return problem(400, 'Some fields are not valid.', requirements.errors);
   const { db } = await getApp();
-  const id = await createSpec(db, evaluateForStorage(body.data.name, body.data.customer, requirements.value), user.id);
+  const id = await createSpec(db, await evaluateForStorage(db, body.data.name, body.data.customer, requirements.value), user.id);
   const created = await getSpec(db, id);
   return json(toSpecJson(created!), 201, { location: `/api/v1/specs/${id}` });
 };

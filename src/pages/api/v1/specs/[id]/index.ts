@@ -30,7 +30,7 @@ export const PUT: APIRoute = async ({ locals, params, request }) => {
   if (!requirements.ok) return problem(400, 'Some fields are not valid.', requirements.errors);
   const { db } = await getApp();
   const id = params.id ?? '';
-  const outcome = await updateSpec(db, id, body.data.version, evaluateForStorage(body.data.name, body.data.customer, requirements.value), user.id);
+  const outcome = await updateSpec(db, id, body.data.version, await evaluateForStorage(db, body.data.name, body.data.customer, requirements.value), user.id);
   if (outcome.kind === 'missing') return problem(404, 'No active requirement set with this id.');
   if (outcome.kind === 'stale') {
     const who = outcome.updatedByName ?? 'someone';

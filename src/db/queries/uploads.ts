@@ -1,0 +1,13 @@
+import { and, desc, eq } from 'drizzle-orm';
+import type { Db } from '../client';
+import { uploads, type Upload } from '../schema';
+
+export async function getUpload(db: Db, id: string): Promise<Upload | undefined> {
+  const rows = await db.select().from(uploads).where(eq(uploads.id, id)).limit(1);
+  return rows[0];
+}
+
+/** Files that belong to one item (a spec, a library version), newest first. */
+export async function uploadsFor(db: Db, relatedType: string, relatedId: string): Promise<Upload[]> {
+  return db.select().from(uploads).where(and(eq(uploads.relatedType, relatedType), eq(uploads.relatedId, relatedId))).orderBy(desc(uploads.createdAt));
+}

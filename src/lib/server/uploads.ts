@@ -1,0 +1,87 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { mkdir, readFile, rm, writeFile } from 'node:fs/promises';
+import path from 'node:path';
+import type { UploadRecord } from '../../db/queries/parts';
+import { config } from './config';
+import { problem } from './http';
+
+/** Largest file accepted by any upload route. */
+export const MAX_UPLOAD_BYTES = 2 * 1024 * 1024;
+
+export interface ReceivedFile {
+  filename: string;
+  mimeType: string;
+  bytes: Uint8Array;
+  /** The content decoded as UTF-8 (text files only reach the caller). */
+  text: string;
+  sha256: string;
+}
+
+const megabytes = (bytes: number): string => `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+
+/** Display name of an uploaded file: no folders, no control characters, at most 120 characters. */
+export function cleanFilename(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? '';
+  const clean = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(0, 120);
+  return clean || 'upload';
+}
+
+/**
+ * Reads one text file from a multipart body (form field `file`). Refuses, with a plain message:
+ * other content types, no file, files over 2 MB, extensions outside `extensions`, and
+ * content that is not UTF-8 text (NUL bytes or invalid sequences, as in spreadsheets and images).
+ */
+export async function receiveTextFile(request: Request, extensions: readonly string[]): Promise<{ ok: true; file: ReceivedFile; form: FormData } | { ok: false; response: Response }> {
+  const fail = (status: number, message: string) => ({ ok: false as const, response: problem(status, message) });
+  const type = request.headers.get('content-type') ?? '';
+  if (!type.toLowerCase().startsWith('multipart/form-data')) return fail(400, 'Send the file as multipart/form-data in a field named "file".');
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  if (declared > MAX_UPLOAD_BYTES + 64 * 1024) return fail(413, `The upload is ${megabytes(declared)}; files may be at most 2 MB.`);
+  let form: FormData;
+  try {
+    form = await request.formData();
+  } catch {
+    return fail(400, 'The multipart body could not be read; send the file in a field named "file".');
+  }
+  const file = form.get('file');
+  if (!(file instanceof File)) return fail(400, 'No file: send it in a form field named "file".');
+  if (file.size === 0) return fail(400, 'The file is empty.');
+  if (file.size > MAX_UPLOAD_BYTES) return fail(413, `The file is ${megabytes(file.size)}; files may be at most 2 MB.`);
+  const filename = cleanFilename(file.name);
+  const extension = path.extname(filename).slice(1).toLowerCase();
+  if (!extensions.includes(extension)) {
+    return fail(415, `"${filename}" is not a ${extensions.map((e) => `.${e}`).join(' or ')} file. ${extension === 'xlsx' || extension === 'xls' ? 'Save the sheet as CSV (comma-separated) first.' : ''}`.trim());
+  }
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  if (bytes.includes(0)) return fail(415, `"${filename}" is not a text file (it holds binary data).`);
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    return fail(415, `"${filename}" is not UTF-8 text. Save it as CSV UTF-8 and try again.`);
+  }
+  const mimeType = extension === 'json' ? 'application/json' : 'text/csv';
+  return { ok: true, form, file: { filename, mimeType, bytes, text, sha256: createHash('sha256').update(bytes).digest('hex') } };
+}
+
+const STORED_NAME = /^[a-f0-9]{48}$/;
+const uploadDir = (): string => path.resolve(config.dataDir, 'uploads');
+
+/** Writes the file under DATA_DIR/uploads with a random name; returns the row to record. */
+export async function storeFile(file: ReceivedFile): Promise<UploadRecord> {
+  const storedName = randomBytes(24).toString('hex');
+  await mkdir(uploadDir(), { recursive: true, mode: 0o700 });
+  await writeFile(path.join(uploadDir(), storedName), file.bytes, { mode: 0o600, flag: 'wx' });
+  return { filename: file.filename, sizeBytes: file.bytes.byteLength, mimeType: file.mimeType, sha256: file.sha256, storedName };
+}
+
+/** Reads a stored file back (the name must be one of ours, never a path). */
+export async function readStoredFile(storedName: string): Promise<Buffer> {
+  if (!STORED_NAME.test(storedName)) throw new Error('not a stored upload name');
+  return readFile(path.join(uploadDir(), storedName));
+}
+
+/** Removes a stored file whose database row was never written (a failed transaction). */
+export async function discardStoredFile(storedName: string): Promise<void> {
+  if (STORED_NAME.test(storedName)) await rm(path.join(uploadDir(), storedName), { force: true });
+}
