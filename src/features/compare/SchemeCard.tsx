@@ -12,6 +12,8 @@ interface Props {
   stale: boolean;
   activeClampVariant: 'high-side' | 'low-side';
   rectifier: 'diode' | 'synchronous';
+  /** Caption under the score; default "score · rank N of M". */
+  rankText?: string;
 }
 
 const VERDICT_CLASS = {
@@ -40,7 +42,7 @@ function TraceDetail({ label, entry }: { label: string; entry: TraceEntry }) {
 }
 
 /** One reset scheme: verdict and reasons, key figures (each explainable), score and rank, schematic. */
-export default function SchemeCard({ result, rank, of, stale, activeClampVariant, rectifier }: Props) {
+export default function SchemeCard({ result, rank, of, stale, activeClampVariant, rectifier, rankText }: Props) {
   const [selected, setSelected] = useState<string | null>(null);
   const style = SCHEME_STYLES[result.scheme];
   const verdict = verdictOf(result);
@@ -61,7 +63,7 @@ export default function SchemeCard({ result, rank, of, stale, activeClampVariant
         </div>
         <div className="text-right">
           <p className="text-2xl font-semibold tabular-nums leading-none" data-score>{result.score.toFixed(0)}</p>
-          <p className="text-xs text-muted" data-rank={rank}>score · rank {rank} of {of}</p>
+          <p className="text-xs text-muted" data-rank={rank}>{rankText ?? `score · rank ${rank} of ${of}`}</p>
         </div>
       </header>
       <div className="px-3 pt-1">

@@ -83,13 +83,13 @@ export default function BallotPanel({ shortlistId, choices, initial }: Props) {
                 <span className="w-5 text-right font-semibold tabular-nums">{index + 1}.</span>
                 <span className="cursor-grab select-none text-muted" aria-hidden="true">⠿</span>
                 <span className="inline-block size-2.5 rounded-full" style={{ background: SCHEME_STYLES[choice.scheme].color }} aria-hidden="true" />
-                <span className="font-medium">{choice.label}</span>
-                {choice.note && <span className="truncate text-xs text-muted">— {choice.note}</span>}
+                <span className="whitespace-nowrap font-medium">{choice.label}</span>
                 <span className="ml-auto flex gap-1">
                   <button type="button" className="btn px-2 py-0.5" onClick={() => move(id, -1)} disabled={index === 0} aria-label={`Move ${choice.label} up`}>↑</button>
                   <button type="button" className="btn px-2 py-0.5" onClick={() => move(id, 1)} disabled={index === order.length - 1} aria-label={`Move ${choice.label} down`}>↓</button>
                 </span>
               </div>
+              {choice.note && <p className="truncate pl-7 text-xs text-muted">{choice.note}</p>}
               <label className="mt-1 flex items-center gap-1.5 pl-7 text-xs">
                 <input type="checkbox" checked={concern !== undefined} onChange={(e) => setConcerns({ ...concerns, [id]: e.target.checked ? '' : undefined })} />
                 Blocking concern

@@ -5,7 +5,8 @@ import CandidateActions from './CandidateActions';
 interface Props {
   shortlistId: string;
   candidate: CandidateView;
-  rank: number;
+  /** Borda rank once the tally is visible. */
+  rank: number | null;
   of: number;
   chosen: boolean;
   editable: boolean;
@@ -17,7 +18,8 @@ export default function CandidateCard({ shortlistId, candidate, rank, of, chosen
     <div className={`flex flex-col gap-1.5 ${chosen ? 'rounded-lg ring-2 ring-accent ring-offset-2 ring-offset-canvas' : ''}`} data-candidate={candidate.scheme}>
       {chosen && <p className="text-sm font-semibold text-accent-strong">Chosen</p>}
       <SchemeCard
-        result={candidate.result} rank={rank} of={of} stale={false}
+        result={candidate.result} rank={rank ?? 0} of={of} stale={false}
+        rankText={rank === null ? 'engine score' : `score · ballot rank ${rank} of ${of}`}
         activeClampVariant={candidate.variant.activeClampVariant} rectifier={candidate.variant.rectifier}
       />
       <div className="space-y-1 px-1 text-xs">
