@@ -11,6 +11,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/specs', label: 'Specs', capability: 'readSpecs' },
   { href: '/compare', label: 'Compare', capability: 'runComparisons' },
   { href: '/shortlists', label: 'Shortlists', capability: 'readSpecs' },
+  { href: '/parts', label: 'Parts library', capability: 'readParts' },
   { href: '/team', label: 'Team', capability: 'manageTeam' },
   { href: '/outbox', label: 'Outbox', capability: 'readOutbox' },
 ];
