@@ -6,6 +6,7 @@ import { CHOICE_FIELDS, NUMERIC_FIELDS } from '../features/compare/fields';
 import { $draftExtras, $draftFields } from './spec-draft';
 import { $overrides } from './overrides';
 import { $weights } from './weights';
+import { $library } from './library';
 
 export interface Evaluation {
   /** The latest valid comparison (kept while the form has errors). */
@@ -35,16 +36,16 @@ export function buildRequirements(fields: Record<string, string>, extras: Record
 
 let lastValid: Comparison | null = null;
 
-/** The live comparison every card and chart renders, recomputed on any edit. */
-export const $evaluation = computed([$draftFields, $draftExtras, $weights, $overrides], (fields, extras, weights, overrides): Evaluation => {
-  if (Object.keys(fields).length === 0) return { comparison: null, requirements: null, errors: {}, current: false };
+/** The live comparison every card and chart renders, recomputed on any edit, against the workspace's parts library. */
+export const $evaluation = computed([$draftFields, $draftExtras, $weights, $overrides, $library], (fields, extras, weights, overrides, library): Evaluation => {
+  if (Object.keys(fields).length === 0 || !library) return { comparison: null, requirements: null, errors: {}, current: false };
   const { raw, errors } = buildRequirements(fields, extras);
   raw.weights = weights;
   if (Object.keys(overrides).length > 0) raw.overrides = overrides;
   if (Object.keys(errors).length === 0) {
     const parsed = parseSpecInput(raw);
     if (parsed.ok) {
-      lastValid = evaluateNormalised(parsed.value);
+      lastValid = evaluateNormalised(parsed.value, library);
       return { comparison: lastValid, requirements: raw, errors, current: true };
     }
     for (const error of parsed.errors) errors[error.field.split('.')[0]!] ??= error.message;

@@ -1,16 +1,31 @@
+import type { PartsLibrary } from '../../engine';
 import { $saved, loadSpec } from '../../stores/saved';
+import { loadLibrary } from '../../stores/library';
 import type { SpecPayload } from './api';
+
+/** What the server stored for a saved set, to tell when the parts library moved on since. */
+export interface StoredResult {
+  /** Library version the stored comparison used ("3"), or null when unknown. */
+  libraryVersion: string | null;
+  evaluatedAt: string | null;
+  results: { scheme: string; label: string; feasible: boolean; bomCost: number; efficiency: number; mainSwitchId: string | null }[];
+}
 
 export interface CompareInitial {
   spec: SpecPayload | null;
   requirements: Record<string, unknown>;
+  /** The current parts library (its `version` is the database version number). */
+  library: PartsLibrary;
+  /** The saved comparison's summary, when the set has one. */
+  stored?: StoredResult | null;
 }
 
 let loaded = false;
 
-/** Loads the page's requirement set into the stores once, whichever island mounts first. */
+/** Loads the page's requirement set and parts library into the stores once, whichever island mounts first. */
 export function ensureLoaded(initial: CompareInitial): void {
   if (loaded || $saved.get().snapshot !== '') return;
   loaded = true;
+  loadLibrary(initial.library);
   loadSpec(initial.spec, initial.requirements);
 }
