@@ -50,3 +50,50 @@ export const comparisonSchema = z
 export const staleSchema = z
   .object({ error: z.string(), currentVersion: z.number().int(), updatedBy: z.string().nullable(), updatedAt: z.string() })
   .meta({ id: 'StaleVersion' });
+
+export const briefSummarySchema = z
+  .object({
+    id: z.string(),
+    specId: z.string(),
+    specName: z.string(),
+    shortlistId: z.string().nullable(),
+    title: z.string(),
+    customerName: z.string(),
+    customerContact: z.string(),
+    createdBy: z.string(),
+    createdAt: z.string(),
+    updatedAt: z.string(),
+    latestVersion: z.number().int().nullable(),
+    lastSentAt: z.string().nullable(),
+  })
+  .meta({ id: 'BriefSummary' });
+
+const briefContentSchema = z
+  .looseObject({
+    title: z.string(),
+    customerName: z.string(),
+    verdicts: z.array(z.object({ scheme: z.string(), label: z.string(), verdict: z.enum(['feasible', 'marginal', 'not-feasible']), reasons: z.array(z.string()) })),
+    recommended: z.looseObject({ scheme: z.string(), source: z.enum(['engine', 'edited', 'shortlist']) }).nullable(),
+    cost: z.looseObject({ currency: z.string(), annualVolume: z.number(), bomCost: z.number(), lowPct: z.number(), highPct: z.number(), low: z.number(), high: z.number() }).nullable(),
+    summary: z.string(),
+    risks: z.array(z.string()),
+    assumptions: z.array(z.string()),
+  })
+  .describe('the brief as the customer reads it (src/features/briefs/content.ts)')
+  .meta({ id: 'BriefContent' });
+
+export const briefJsonSchema = briefSummarySchema
+  .extend({
+    draft: z.record(z.string(), z.unknown()).describe('the editable fields (summary, recommendedScheme, contingency, extra risks and assumptions)'),
+    preview: briefContentSchema.describe('the brief computed now from the saved requirement set and the draft'),
+    versions: z.array(z.object({
+      version: z.number().int(), sentTo: z.string(), sentBy: z.string().nullable(), sentAt: z.string().nullable(), frozenAt: z.string(),
+      content: briefContentSchema,
+      shares: z.array(z.object({ id: z.string(), createdAt: z.string(), expiresAt: z.string(), revokedAt: z.string().nullable(), views: z.number().int(), lastViewAt: z.string().nullable() })),
+    })).describe('frozen versions, newest first'),
+  })
+  .meta({ id: 'Brief' });
+
+export const briefShareReplySchema = z
+  .object({ id: z.string(), url: z.string().describe('the read-only link; the token appears in this reply only'), expiresAt: z.string() })
+  .meta({ id: 'BriefShareLink' });
