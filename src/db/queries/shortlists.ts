@@ -174,24 +174,30 @@ export async function openVoting(db: Db, shortlistId: string, input: { deadline:
  */
 export async function castBallot(db: Db, shortlistId: string, voterId: string, ballot: BallotInput): Promise<{ changed: boolean }> {
   return db.transaction(async (tx) => {
-    const row = await lockShortlist(tx, shortlistId);
-    if (row.status !== 'voting') throw new ShortlistRuleError(409, `Voting is not open: the shortlist is ${row.status}.`);
-    if (row.deadline && row.deadline.getTime() <= Date.now()) throw new ShortlistRuleError(409, 'The voting deadline has passed.');
-    const [invited] = await tx.select().from(shortlistVoters).where(and(eq(shortlistVoters.shortlistId, shortlistId), eq(shortlistVoters.userId, voterId)));
+    // One statement locks the shortlist row and reads the invitation and the live candidates.
+    const rows = await tx.execute<{ status: string; deadline: string | Date | null; invited: boolean; live: string[] | null }>(sql`
+      select s.status, s.deadline,
+        exists (select 1 from shortlist_voters v where v.shortlist_id = s.id and v.user_id = ${voterId}) as invited,
+        (select coalesce(array_agg(c.id order by c.id), '{}') from candidates c where c.shortlist_id = s.id and c.removed_at is null) as live
+      from shortlists s where s.id = ${shortlistId} for update of s`);
+    const row = (rows as unknown as { rows?: unknown[] }).rows?.[0] ?? (rows as unknown as unknown[])[0];
+    if (!row) throw new ShortlistRuleError(404, 'No shortlist with this id.');
+    const { status, deadline, invited, live } = row as { status: string; deadline: string | Date | null; invited: boolean; live: string[] | null };
+    if (status !== 'voting') throw new ShortlistRuleError(409, `Voting is not open: the shortlist is ${status}.`);
+    if (deadline && new Date(deadline).getTime() <= Date.now()) throw new ShortlistRuleError(409, 'The voting deadline has passed.');
     if (!invited) throw new ShortlistRuleError(403, 'You are not invited to vote on this shortlist.');
-    const live = (await tx.select({ id: candidates.id }).from(candidates).where(and(eq(candidates.shortlistId, shortlistId), isNull(candidates.removedAt)))).map((c) => c.id);
-    const liveSet = new Set(live);
-    if (ballot.ranking.length !== live.length || !ballot.ranking.every((id) => liveSet.has(id))) {
-      throw new ShortlistRuleError(400, `The ranking must name each of the ${live.length} candidates exactly once.`);
+    const liveSet = new Set(live ?? []);
+    if (ballot.ranking.length !== liveSet.size || !ballot.ranking.every((id) => liveSet.has(id))) {
+      throw new ShortlistRuleError(400, `The ranking must name each of the ${liveSet.size} candidates exactly once.`);
     }
     if (!ballot.concerns.every((c) => liveSet.has(c.candidateId))) throw new ShortlistRuleError(400, 'A concern names a candidate that is not on this shortlist.');
-    const existing = await tx.select({ id: ballots.id }).from(ballots).where(and(eq(ballots.shortlistId, shortlistId), eq(ballots.voterId, voterId)));
-    const now = new Date();
-    await tx
+    // xmax = 0 on the returned row tells an insert from an update of the existing ballot.
+    const [saved] = await tx
       .insert(ballots)
       .values({ id: newId(), shortlistId, voterId, ranking: ballot.ranking, concerns: ballot.concerns, comment: ballot.comment })
-      .onConflictDoUpdate({ target: [ballots.shortlistId, ballots.voterId], set: { ranking: ballot.ranking, concerns: ballot.concerns, comment: ballot.comment, updatedAt: now } });
-    const changed = existing.length > 0;
+      .onConflictDoUpdate({ target: [ballots.shortlistId, ballots.voterId], set: { ranking: ballot.ranking, concerns: ballot.concerns, comment: ballot.comment, updatedAt: new Date() } })
+      .returning({ inserted: sql<boolean>`(xmax = 0)` });
+    const changed = !saved?.inserted;
     await recordAudit(tx, { actorId: voterId, action: changed ? 'ballot.changed' : 'ballot.cast', entityType: 'shortlist', entityId: shortlistId, details: { concerns: ballot.concerns.length } });
     return { changed };
   });
