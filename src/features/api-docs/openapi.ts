@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiResponsesObject } from 'zod-openapi';
+import { partsPaths } from '../parts/openapi-paths';
 import { newUserSchema, signInSchema, userPatchSchema } from '../../schemas/auth';
 import { specInputSchema } from '../../schemas/spec';
 import { specCreateDocSchema, specUpdateDocSchema } from '../../schemas/specs-api';
@@ -35,6 +36,7 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
     components: { securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'rw_session' } } },
     security: [{ session: [] }],
     paths: {
+      ...partsPaths,
       '/auth/sign-in': {
         post: op({ summary: 'Sign in', security: [], requestBody: body(signInSchema), responses: { '200': reply('signed in; sets the session cookie'), ...errors(400, 401, 429) } }),
       },
@@ -71,9 +73,9 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
       '/specs/{id}/comparison': {
         get: op({
           summary: "The server's comparison of the saved version",
-          requestParams: idParam,
+          requestParams: { ...idParam, query: z.object({ fresh: z.enum(['1']).optional().describe('re-evaluate with the current parts library (nothing saved)') }) },
           responses: {
-            '200': reply('stored comparison (re-evaluated when the engine changed)', z.object({ specId: z.string(), specVersion: z.number(), evaluatedAt: z.string().nullable(), storedEngineVersion: z.string().nullable(), reevaluated: z.boolean(), comparison: comparisonSchema })),
+            '200': reply('stored comparison (re-evaluated when the engine changed; `?fresh=1` against the current parts library)', z.object({ specId: z.string(), specVersion: z.number(), evaluatedAt: z.string().nullable(), storedEngineVersion: z.string().nullable(), reevaluated: z.boolean(), libraryVersion: z.number().int(), storedLibraryVersion: z.string().nullable(), libraryChanged: z.boolean().describe('the stored result used another parts-library version'), notice: z.string().optional(), comparison: comparisonSchema })),
             ...errors(401, 404),
           },
         }),
