@@ -117,3 +117,41 @@ export function parseStoredLibrary(raw: unknown, version: number): PartsLibrary 
   }
   return library as unknown as PartsLibrary;
 }
+
+// ── Reply shapes (for the OpenAPI document) ─────────────────────────────────────────────────
+
+const changeSchema = z.looseObject({ op: z.enum(['add', 'change', 'retire']), category: z.string(), id: z.string(), fields: z.record(z.string(), z.object({ from: z.unknown(), to: z.unknown() })).optional() });
+
+export const libraryReplySchema = z
+  .object({ version: z.number().int().describe('database version number of the current library'), library: z.looseObject({ name: z.string(), version: z.string(), currency: z.string() }).describe('every category as a list of parts, SI units') })
+  .meta({ id: 'PartsLibrary' });
+
+export const libraryWriteReplySchema = z
+  .object({ version: z.number().int(), changes: z.array(changeSchema), uploadId: z.string().nullable() })
+  .meta({ id: 'PartsLibraryWrite' });
+
+export const importPreviewReplySchema = z
+  .object({
+    preview: z.object({
+      baseVersion: z.number().int(), rows: z.number().int(), unchanged: z.number().int(),
+      changes: z.array(changeSchema.extend({ line: z.number().int() })),
+      errors: z.array(z.object({ line: z.number().int(), id: z.string().nullable(), message: z.string() })),
+      problems: z.array(z.string()),
+    }),
+    canApply: z.boolean(),
+    filename: z.string(),
+  })
+  .meta({ id: 'PartsImportPreview' });
+
+export const historyReplySchema = z
+  .object({
+    versions: z.array(z.object({
+      version: z.number().int(), summary: z.string(), changes: z.array(changeSchema), by: z.string().nullable(), at: z.string(),
+      upload: z.object({ id: z.string(), filename: z.string().nullable(), url: z.string() }).nullable(),
+    })),
+  })
+  .meta({ id: 'PartsHistory' });
+
+/** A multipart body with one file (field `file`) and optional text fields. */
+export const fileUploadSchema = (description: string, extra: Record<string, z.ZodType> = {}) =>
+  z.object({ file: z.string().meta({ format: 'binary', description }), ...extra });

@@ -19,7 +19,7 @@ const call = (method: string, path: string, role?: string, body?: unknown) =>
     headers: { 'content-type': 'application/json', origin: server.url, ...(role ? { cookie: cookies[role]! } : {}) },
     ...(body !== undefined ? { body: JSON.stringify(body) } : {}),
   });
-const upload = (path: string, role: string | undefined, content: string | Uint8Array, filename = 'parts.csv', type = 'text/csv') => {
+const upload = (path: string, role: string | undefined, content: string | Uint8Array<ArrayBuffer>, filename = 'parts.csv', type = 'text/csv') => {
   const form = new FormData();
   form.append('file', new Blob([content], { type }), filename);
   return fetch(`${server.url}${path}`, { method: 'POST', headers: { origin: server.url, ...(role ? { cookie: cookies[role]! } : {}) }, body: form });

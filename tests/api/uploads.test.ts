@@ -16,7 +16,7 @@ afterAll(async () => {
 });
 
 const get = (url: string, role?: string) => fetch(`${server.url}${url}`, { headers: role ? { cookie: cookies[role]! } : {} });
-const importSpec = (role: string | undefined, content: string | Uint8Array, filename: string, fields: Record<string, string> = {}) => {
+const importSpec = (role: string | undefined, content: string | Uint8Array<ArrayBuffer>, filename: string, fields: Record<string, string> = {}) => {
   const form = new FormData();
   form.append('file', new Blob([content]), filename);
   for (const [k, v] of Object.entries(fields)) form.append(k, v);

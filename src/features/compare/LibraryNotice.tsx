@@ -69,6 +69,9 @@ export default function LibraryNotice({ initial, canSave }: { initial: CompareIn
         {fresh && !canSave && <span className="text-muted">Fresh result shown, not saved (only architects and admins save).</span>}
         {message && <span className={message.error ? 'text-fail' : 'text-ok'} role="alert">{message.text}</span>}
       </div>
+      {fresh && fresh.every((now) => { const b = stored.results.find((r) => r.scheme === now.scheme); return b && Math.abs(b.bomCost - now.bomCost) < 1e-9 && b.mainSwitchId === now.mainSwitchId && b.feasible === now.feasible && Math.abs(b.efficiency - now.efficiency) < 1e-9; }) && (
+        <p className="mt-2 text-sm" role="status">No figure below moved: the library change does not touch the parts this set uses.</p>
+      )}
       {fresh && (
         <div className="mt-2 overflow-x-auto">
           <table className="table-eng bg-panel" data-library-diff>

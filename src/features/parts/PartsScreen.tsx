@@ -15,6 +15,8 @@ interface Props {
 }
 
 const STATUS_STYLE: Record<string, string> = { preferred: 'bg-ok-soft text-ok', allowed: 'bg-accent-soft text-accent-strong', nfnd: 'bg-fail-soft text-fail' };
+/** Tables open sorted by the key rating (VDS, VRRM, capacitance…), as a parts board reads them. */
+const ratingKey = (c: CategoryInfo): string => c.fields.find((f) => f.kind === 'number')?.key ?? 'id';
 const qtyText = (q: number): string => (q >= 1e6 ? `${q / 1e6}M` : q >= 1e3 ? `${q / 1e3}k` : String(q));
 
 /** The Parts library: one table per category with search, status filter and sort; admins edit and import. */
@@ -24,7 +26,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
   const [tab, setTab] = useState<CategoryInfo>(CATEGORIES[0]!);
   const [query, setQuery] = useState('');
   const [status, setStatus] = useState('');
-  const [sort, setSort] = useState<{ key: string; dir: 1 | -1 }>({ key: 'id', dir: 1 });
+  const [sort, setSort] = useState<{ key: string; dir: 1 | -1 }>({ key: ratingKey(CATEGORIES[0]!), dir: 1 });
   const [editing, setEditing] = useState<Part | 'new' | null>(null);
   const [importing, setImporting] = useState(false);
   const [message, setMessage] = useState<{ text: string; error: boolean } | null>(null);
@@ -37,7 +39,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
     return [...list].sort((a, b) => {
       const x = value(a);
       const y = value(b);
-      return (typeof x === 'number' && typeof y === 'number' ? x - y : String(x).localeCompare(String(y))) * sort.dir;
+      return (typeof x === 'number' && typeof y === 'number' ? x - y : String(x).localeCompare(String(y), 'en', { numeric: true })) * sort.dir;
     });
   }, [parts, query, status, sort, tab]);
 
@@ -91,7 +93,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
         {CATEGORIES.map((c) => (
           <button key={c.key} role="tab" type="button" aria-selected={c.key === tab.key} data-tab={c.key}
             className={`-mb-px rounded-t-md border px-3 py-1.5 text-sm ${c.key === tab.key ? 'border-line border-b-panel bg-panel font-semibold' : 'border-transparent text-muted hover:text-ink'}`}
-            onClick={() => { setTab(c); setEditing(null); setSort({ key: 'id', dir: 1 }); }}>
+            onClick={() => { setTab(c); setEditing(null); setSort({ key: ratingKey(c), dir: 1 }); }}>
             {c.label} <span className="text-xs text-muted">({(library[c.key] as unknown[]).length})</span>
           </button>
         ))}
@@ -123,7 +125,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
             <tbody>
               {shown.map((p) => (
                 <tr key={p.id} data-part={p.id} className={p.status === 'nfnd' ? 'text-muted' : ''}>
-                  <td><span className="font-mono text-xs">{p.id}</span>{typeof p.description === 'string' && <div className="text-xs text-muted">{p.description}</div>}</td>
+                  <td><span className="font-mono text-xs whitespace-nowrap">{p.id}</span>{typeof p.description === 'string' && <div className="text-xs text-muted">{p.description}</div>}</td>
                   <td><span className={`rounded px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STATUS_STYLE[p.status]}`}>{STATUS_LABELS[p.status]}</span></td>
                   {tab.fields.map((f) => <td key={f.key} className={f.kind === 'number' ? 'num' : ''} title={f.kind === 'number' ? `${String(p[f.key])} (SI)` : undefined}>{displayValue(p[f.key], f.unit)}</td>)}
                   <td className="num text-xs">{p.tiers.map((t) => `${qtyText(t.minQty)}+: ${t.unitPrice.toFixed(3)}`).join(' · ')}</td>
