@@ -4,11 +4,13 @@ import { partsPaths } from '../parts/openapi-paths';
 import { newUserSchema, signInSchema, userPatchSchema } from '../../schemas/auth';
 import { specInputSchema } from '../../schemas/spec';
 import { specCreateDocSchema, specUpdateDocSchema } from '../../schemas/specs-api';
-import { comparisonSchema, problemSchema, specJsonSchema, staleSchema, userJsonSchema } from '../../schemas/responses';
+import { shortlistPaths } from './shortlist-paths';
+import { comparisonSchema, problemSchema, specJsonSchema, staleSchema, userJsonSchema, briefJsonSchema, briefShareReplySchema, briefSummarySchema } from '../../schemas/responses';
+import { briefCreateSchema, briefSendDocSchema, briefShareSchema, briefUpdateSchema } from '../../schemas/briefs';
 
 const body = (schema: z.ZodType) => ({ content: { 'application/json': { schema } } });
 const reply = (description: string, schema?: z.ZodType) => (schema ? { description, ...body(schema) } : { description });
-const errors = (...codes: (400 | 401 | 403 | 404 | 409 | 429)[]): ZodOpenApiResponsesObject => {
+const errors = (...codes: (400 | 401 | 403 | 404 | 409 | 429 | 502)[]): ZodOpenApiResponsesObject => {
   const text: Record<number, string> = {
     400: 'bad input: each bad field with a plain reason',
     401: 'not signed in',
@@ -16,6 +18,7 @@ const errors = (...codes: (400 | 401 | 403 | 404 | 409 | 429)[]): ZodOpenApiResp
     404: 'no such item',
     409: 'conflict',
     429: 'too many attempts',
+    502: 'the mail server refused the message',
   };
   return Object.fromEntries(codes.map((c) => [String(c), reply(text[c]!, problemSchema)]));
 };
@@ -36,6 +39,7 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
     components: { securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'rw_session' } } },
     security: [{ session: [] }],
     paths: {
+      ...shortlistPaths,
       ...partsPaths,
       '/auth/sign-in': {
         post: op({ summary: 'Sign in', security: [], requestBody: body(signInSchema), responses: { '200': reply('signed in; sets the session cookie'), ...errors(400, 401, 429) } }),
@@ -69,6 +73,42 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
           responses: { '200': reply('saved', specJsonSchema), '409': reply('someone saved a newer version', staleSchema), ...errors(400, 401, 403, 404) },
         }),
         delete: op({ summary: 'Archive a requirement set (architect, admin)', requestParams: idParam, responses: { '200': reply('archived'), ...errors(401, 403, 404) } }),
+      },
+      '/briefs': {
+        get: op({
+          summary: 'Feasibility briefs (every role)',
+          requestParams: { query: z.object({ specId: z.string().optional().describe('only the briefs of this requirement set') }) },
+          responses: { '200': reply('the briefs, newest change first', z.object({ briefs: z.array(briefSummarySchema) })), ...errors(400, 401) },
+        }),
+        post: op({ summary: 'Start a brief from a requirement set or a decided shortlist (sales, architect, admin)', requestBody: body(briefCreateSchema), responses: { '201': reply('created', briefJsonSchema), ...errors(400, 401, 403) } }),
+      },
+      '/briefs/{id}': {
+        get: op({ summary: 'One brief: draft, live preview and frozen versions (every role)', requestParams: idParam, responses: { '200': reply('the brief', briefJsonSchema), ...errors(401, 404) } }),
+        put: op({ summary: 'Save the editable brief (sales, architect, admin); a recommended scheme must be feasible', requestParams: idParam, requestBody: body(briefUpdateSchema), responses: { '200': reply('saved', briefJsonSchema), ...errors(400, 401, 403, 404) } }),
+      },
+      '/briefs/{id}/send': {
+        post: op({
+          summary: 'Freeze the next version, make its share link and e-mail it (sales, architect, admin)',
+          requestParams: idParam,
+          requestBody: body(briefSendDocSchema),
+          responses: {
+            '201': reply('sent (or captured in demo mode)', z.object({ version: z.number().int(), sentTo: z.array(z.string()), cc: z.array(z.string()), share: briefShareReplySchema, mail: z.object({ id: z.string(), status: z.string(), error: z.string().nullable() }) })),
+            ...errors(400, 401, 403, 404, 502),
+          },
+        }),
+      },
+      '/briefs/{id}/share': {
+        post: op({
+          summary: 'A read-only link to the latest version, valid 30 days unless expiresInDays says otherwise (sales, architect, admin)',
+          requestParams: idParam,
+          requestBody: { ...body(briefShareSchema), required: false },
+          responses: { '201': reply('the link', z.object({ version: z.number().int(), frozeNewVersion: z.boolean(), share: briefShareReplySchema })), ...errors(400, 401, 403, 404) },
+        }),
+        delete: op({
+          summary: 'Revoke every live link of the brief, or one with ?shareId= (sales, architect, admin)',
+          requestParams: { ...idParam, query: z.object({ shareId: z.string().optional() }) },
+          responses: { '200': reply('how many links were revoked', z.object({ revoked: z.number().int() })), ...errors(400, 401, 403, 404) },
+        }),
       },
       '/specs/{id}/comparison': {
         get: op({
