@@ -5,6 +5,7 @@ import { newUserSchema, signInSchema, userPatchSchema } from '../../schemas/auth
 import { specInputSchema } from '../../schemas/spec';
 import { specCreateDocSchema, specUpdateDocSchema } from '../../schemas/specs-api';
 import { shortlistPaths } from './shortlist-paths';
+import { shortlistPaths } from './shortlist-paths';
 import { comparisonSchema, problemSchema, specJsonSchema, staleSchema, userJsonSchema, briefJsonSchema, briefShareReplySchema, briefSummarySchema } from '../../schemas/responses';
 import { briefCreateSchema, briefSendDocSchema, briefShareSchema, briefUpdateSchema } from '../../schemas/briefs';
 
@@ -39,6 +40,7 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
     components: { securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'rw_session' } } },
     security: [{ session: [] }],
     paths: {
+      ...shortlistPaths,
       ...shortlistPaths,
       ...partsPaths,
       '/auth/sign-in': {
