@@ -168,6 +168,14 @@ describe('shortlist workflow and roles', () => {
     expect(fresh.body.candidates[0].result.switchPeakV).toBeCloseTo(80, 6); // two-switch: each switch sees Vin,max (Hart §7.5, from memory)
   });
 
+  it('the OpenAPI document lists every shortlist route', async () => {
+    const doc = await (await fetch(`${server.url}/api/v1/openapi.json`)).json();
+    for (const route of ['/shortlists', '/shortlists/{id}', '/shortlists/{id}/candidates', '/shortlists/{id}/candidates/{candidateId}', '/shortlists/{id}/open', '/shortlists/{id}/ballot', '/shortlists/{id}/close', '/shortlists/{id}/decision']) {
+      expect(doc.paths[route], route).toBeDefined();
+    }
+    expect(doc.paths['/shortlists/{id}/ballot'].put.requestBody.content['application/json'].schema.required).toEqual(expect.arrayContaining(['ranking']));
+  });
+
   it('GET 404 for unknown shortlists; list filters by spec', async () => {
     expect((await call('GET', '/shortlists/nope', 'engineer')).status).toBe(404);
     const list = await call('GET', '/shortlists?specId=demo-spec-3', 'engineer');
