@@ -1,4 +1,4 @@
-import { evaluate, type Comparison } from '../../engine';
+import { evaluate, type Comparison, type PartsLibrary } from '../../engine';
 import { SCHEME_IDS, type SchemeId } from '../../engine/scheme-ids';
 import type { Db } from '../../db/client';
 import { getBrief, getShortlistForBrief, listVersions, type BriefRow, type DecidedShortlist, type VersionWithShares } from '../../db/queries/briefs';
@@ -7,6 +7,7 @@ import { users } from '../../db/schema';
 import { eq } from 'drizzle-orm';
 import { briefDraftSchema, type BriefDraft } from '../../schemas/briefs';
 import { DEMO_COMPANY } from '../../demo/accounts';
+import { currentLibrary } from '../parts/library.server';
 import { composeBrief } from './compose';
 import type { BriefContent } from './content';
 
@@ -18,21 +19,22 @@ export function decidedScheme(shortlist: DecidedShortlist | undefined): SchemeId
 }
 
 /**
- * The comparison behind a brief: the saved requirement set through the engine, with the
+ * The comparison behind a brief: the saved requirement set through the engine and the team's
+ * current parts library (prices at its volume tiers), with the
  * decided candidate's options applied to its scheme when a decided shortlist backs the brief.
  */
-export function comparisonForBrief(spec: SpecDetail, shortlist: DecidedShortlist | undefined): Comparison {
+export function comparisonForBrief(spec: SpecDetail, shortlist: DecidedShortlist | undefined, library: PartsLibrary): Comparison {
   const scheme = decidedScheme(shortlist);
   const options = shortlist?.decidedOverrides;
   if (scheme && options && Object.keys(options).length > 0) {
     try {
       const overrides = { ...((spec.requirements.overrides as Record<string, unknown> | undefined) ?? {}), [scheme]: options };
-      return evaluate({ ...spec.requirements, overrides });
+      return evaluate({ ...spec.requirements, overrides }, library);
     } catch {
       // options the engine no longer accepts: fall back to the plain requirement set
     }
   }
-  return evaluate(spec.requirements);
+  return evaluate(spec.requirements, library);
 }
 
 /** The stored draft, read leniently: fields that no longer validate fall back to defaults. */
@@ -65,7 +67,7 @@ export async function loadBrief(db: Db, id: string, options: { demo: boolean }):
   const shortlist = brief.shortlistId ? await getShortlistForBrief(db, brief.shortlistId) : undefined;
   const [author] = await db.select({ name: users.displayName, email: users.email }).from(users).where(eq(users.id, brief.createdById)).limit(1);
   const draft = readDraft(brief.draft);
-  const comparison = comparisonForBrief(spec, shortlist);
+  const comparison = comparisonForBrief(spec, shortlist, (await currentLibrary(db)).library);
   const content = composeBrief(comparison, draft, {
     title: brief.title,
     customerName: brief.customerName,
