@@ -12,6 +12,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/compare', label: 'Compare', capability: 'runComparisons' },
   { href: '/shortlists', label: 'Shortlists', capability: 'readSpecs' },
   { href: '/parts', label: 'Parts library', capability: 'readParts' },
+  { href: '/briefs', label: 'Briefs', capability: 'readBriefs' },
   { href: '/team', label: 'Team', capability: 'manageTeam' },
   { href: '/outbox', label: 'Outbox', capability: 'readOutbox' },
 ];
