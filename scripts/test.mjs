@@ -2,6 +2,7 @@
 // `npm test`: type checks, a production build, then every vitest suite (unit, API against the
 // built server, browser). Database tests run on PGlite and on PostgreSQL: TEST_DATABASE_URL
 // names a server to use; without it a throw-away cluster is started here (scripts/pg-cluster.sh).
+// The API suite then runs a second time with the server on PostgreSQL (DATABASE_URL).
 import { spawnSync } from 'node:child_process';
 import { chmodSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -44,6 +45,10 @@ if (!env.TEST_DATABASE_URL) {
   }
 }
 
-const ok = run('Tests (vitest)', 'npx', ['vitest', 'run', ...process.argv.slice(2)]);
+let ok = run('Tests (vitest)', 'npx', ['vitest', 'run', ...process.argv.slice(2)]);
+// The API suite again, with the server on a real PostgreSQL database (DATABASE_URL mode).
+if (ok && env.TEST_DATABASE_URL && process.argv.length <= 2) {
+  ok = run('API tests on PostgreSQL', 'npx', ['vitest', 'run', 'tests/api'], { RESETWISE_TEST_DB: 'postgres' });
+}
 if (cluster) spawnSync('bash', ['scripts/pg-cluster.sh', 'stop', cluster], { stdio: 'inherit' });
 process.exit(ok ? 0 : 1);

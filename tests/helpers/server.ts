@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
@@ -33,6 +34,9 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   if (!existsSync(entry)) throw new Error(`${entry} is missing: run \`npm run build\` (npm test does it)`);
   const port = await freePort();
   const dataDir = env.DATA_DIR ?? mkdtempSync(path.join(tmpdir(), 'resetwise-test-'));
+  // RESETWISE_TEST_DB=postgres: the server gets a fresh database on the TEST_DATABASE_URL server.
+  const postgres = process.env.RESETWISE_TEST_DB === 'postgres' && !env.DATA_DIR ? await freshPostgresDatabase() : undefined;
+  if (postgres) env = { DATABASE_URL: postgres.url, ...env };
   let log = '';
   const child: ChildProcess = spawn(process.execPath, [entry], {
     env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), RESETWISE_DEMO: '1', ...env, DATA_DIR: dataDir },
@@ -63,6 +67,29 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
         await exited;
       }
       rmSync(dataDir, { recursive: true, force: true });
+      await postgres?.drop();
+    },
+  };
+}
+
+async function freshPostgresDatabase(): Promise<{ url: string; drop(): Promise<void> }> {
+  const serverUrl = process.env.TEST_DATABASE_URL;
+  if (!serverUrl) throw new Error('RESETWISE_TEST_DB=postgres needs TEST_DATABASE_URL');
+  const { default: pg } = await import('pg');
+  const name = `rw_api_${randomBytes(6).toString('hex')}`;
+  const admin = new pg.Client({ connectionString: serverUrl });
+  await admin.connect();
+  await admin.query(`create database ${name}`);
+  await admin.end();
+  const url = new URL(serverUrl);
+  url.pathname = `/${name}`;
+  return {
+    url: url.toString(),
+    async drop() {
+      const client = new pg.Client({ connectionString: serverUrl });
+      await client.connect();
+      await client.query(`drop database if exists ${name} with (force)`);
+      await client.end();
     },
   };
 }
