@@ -61,6 +61,15 @@ describe('reading the library', () => {
   });
 });
 
+describe('API document', () => {
+  it('lists every parts, import and upload route', async () => {
+    const doc = await (await call('GET', '/api/v1/openapi.json', 'sales')).json();
+    for (const route of ['/parts', '/parts/{id}', '/parts/import', '/parts/export.csv', '/parts/history', '/specs/import', '/uploads/{id}']) expect(doc.paths[route]).toBeDefined();
+    expect(Object.keys(doc.paths['/parts/{id}'])).toEqual(['put', 'delete']);
+    expect(doc.paths['/parts/import'].post.requestBody.content['multipart/form-data']).toBeDefined();
+  });
+});
+
 describe('CSV import', () => {
   it('only admins import (401, 403 for the others)', async () => {
     const csv = await exportCsv();

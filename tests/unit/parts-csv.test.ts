@@ -129,3 +129,18 @@ describe('a cheaper qualifying MOSFET', () => {
     expect(after.bomCost).toBeCloseTo(before.bomCost - saving, 9);
   });
 });
+
+describe('parts CSV export', () => {
+  it('guards text cells a spreadsheet would run as a formula (common practice, OWASP CSV injection)', () => {
+    const tampered = { ...library, mosfets: [{ ...library.mosfets[0]!, description: '=HYPERLINK("http://x.example")' }, { ...library.mosfets[1]!, description: '@SUM(1)' }] };
+    const out = libraryCsv(tampered, 'mosfets');
+    expect(out).toContain(`"'=HYPERLINK(""http://x.example"")"`);
+    expect(out).toContain("'@SUM(1)");
+    expect(out).not.toMatch(/,=|,@/);
+  });
+
+  it('keeps full precision of computed values (AL of the cores)', () => {
+    const out = libraryCsv(library, 'cores');
+    expect(out).toContain(String(library.cores[0]!.alH));
+  });
+});
