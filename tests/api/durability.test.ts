@@ -1,0 +1,13 @@
+import { describe, expect, it } from 'vitest';
+import { runDurability } from '../../scripts/durability';
+
+// The embedded database only: PostgreSQL mode keeps its data in the server, not in the killed process.
+describe.skipIf(process.env.RESETWISE_TEST_DB === 'postgres')('crash durability of the embedded database', () => {
+  it('every write acknowledged before a SIGKILL is there after the restart', async () => {
+    const report = await runDurability(1);
+    console.log(`Durability: acknowledged ${report.acknowledged.specSaves} spec saves, ${report.acknowledged.ballots} ballots, ${report.acknowledged.members} members; ${report.unacknowledged} cut off`);
+    expect(report.acknowledged.ballots).toBeGreaterThan(0);
+    expect(report.acknowledged.specSaves).toBeGreaterThan(0);
+    expect(report.problems).toEqual([]);
+  }, 180_000);
+});
