@@ -19,10 +19,10 @@ afterAll(async () => {
 
 // What each role's header must list (DESIGN.md roles; screens that exist so far).
 const expectedNav: Record<string, string[]> = {
-  admin: ['Specs', 'Compare', 'Parts library', 'Briefs', 'Team', 'Outbox'],
-  architect: ['Specs', 'Compare', 'Parts library', 'Briefs'],
-  engineer: ['Specs', 'Compare', 'Parts library', 'Briefs'],
-  sales: ['Specs', 'Parts library', 'Briefs'],
+  admin: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs', 'Team', 'Outbox'],
+  architect: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs'],
+  engineer: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs'],
+  sales: ['Specs', 'Shortlists', 'Parts library', 'Briefs'],
 };
 
 describe('signing in through the browser', () => {
