@@ -1,0 +1,58 @@
+// Server figures for the README: ready time after build, POST /api/v1/evaluate latency at 100
+// concurrent connections (autocannon, loopback), resident memory at rest and under that load.
+// Uses the build in dist/ (or RESETWISE_DIST); run `npm run build` first.
+import { spawn } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import autocannon from 'autocannon';
+
+const entry = path.join(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
+if (!existsSync(entry)) throw new Error(`${entry} is missing: run \`npm run build\` first`);
+
+const port = await new Promise<number>((resolve) => {
+  const probe = createServer().listen(0, '127.0.0.1', () => {
+    const a = probe.address();
+    probe.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
+  });
+});
+const dataDir = mkdtempSync(path.join(tmpdir(), 'resetwise-bench-'));
+const base = `http://127.0.0.1:${port}`;
+const rssMiB = (pid: number): number => {
+  const line = readFileSync(`/proc/${pid}/status`, 'utf8').split('\n').find((l) => l.startsWith('VmRSS:'));
+  return Number(line?.match(/(\d+)/)?.[1] ?? 0) / 1024;
+};
+
+const t0 = performance.now();
+const child = spawn(process.execPath, [entry], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), DATA_DIR: dataDir, RESETWISE_DEMO: '1' }, stdio: 'ignore' });
+let readyMs = 0;
+for (;;) {
+  try {
+    if ((await fetch(`${base}/api/v1/health`)).ok) { readyMs = performance.now() - t0; break; }
+  } catch { /* starting */ }
+  if (performance.now() - t0 > 60_000) throw new Error('server did not start');
+  await new Promise((r) => setTimeout(r, 20));
+}
+try {
+  const signIn = await fetch(`${base}/api/v1/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'engineer@resetwise.example', password: 'resetwise-demo' }) });
+  const cookie = signIn.headers.getSetCookie()[0]!.split(';')[0]!;
+  await new Promise((r) => setTimeout(r, 1000));
+  const restMiB = rssMiB(child.pid!);
+  const body = readFileSync('examples/telecom-brick-36-75v-12v.json', 'utf8');
+  let peakMiB = restMiB;
+  const sampler = setInterval(() => { peakMiB = Math.max(peakMiB, rssMiB(child.pid!)); }, 200);
+  const result = await autocannon({
+    url: `${base}/api/v1/evaluate`, method: 'POST', connections: 100, duration: 10,
+    headers: { 'content-type': 'application/json', cookie }, body,
+  });
+  clearInterval(sampler);
+  const afterMiB = rssMiB(child.pid!);
+  console.log(`Server ready after start: ${readyMs.toFixed(0)} ms (migrations and demo seed included)`);
+  console.log(`POST /api/v1/evaluate, 100 connections, 10 s: ${result.requests.total} requests, ${result.non2xx} non-2xx, ${result.errors} errors; p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${result.requests.average.toFixed(0)} req/s`);
+  console.log(`Resident memory: ${restMiB.toFixed(0)} MiB at rest, ${peakMiB.toFixed(0)} MiB peak under load, ${afterMiB.toFixed(0)} MiB after`);
+} finally {
+  child.kill('SIGTERM');
+  await new Promise((r) => child.once('exit', r));
+  rmSync(dataDir, { recursive: true, force: true });
+}
