@@ -53,6 +53,8 @@ describe('Briefs in the browser', () => {
   it('sales writes a brief from Compare, sends it, and the link opens signed out and prints cleanly', async () => {
     const sales = await signedInPage('sales@resetwise.example');
     await sales.goto(`${server.url}/compare/demo-spec-1`);
+    await sales.locator('[data-write-brief]').waitFor();
+    await sales.screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-write-brief-sales.png'), clip: { x: 0, y: 0, width: 1280, height: 260 } });
     await sales.locator('[data-write-brief]').click();
     await sales.waitForURL((url) => url.pathname === '/briefs' && url.searchParams.get('specId') === 'demo-spec-1');
     await islandsHydrated(sales);

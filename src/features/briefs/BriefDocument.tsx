@@ -14,7 +14,7 @@ const VERDICT_CLASS: Record<Verdict, string> = {
 };
 
 const SOURCE_TEXT = {
-  engine: 'best feasible scheme in the engine ranking',
+  engine: 'the best feasible scheme in the engine ranking (a weighted score of switch voltage stress, duty headroom, part count, cost and efficiency)',
   edited: 'chosen by the author of this brief',
   shortlist: 'decided by our engineering team on a shortlist ballot',
 } as const;
@@ -36,9 +36,10 @@ function Lines({ lines, testId }: { lines: BriefLine[]; testId: string }) {
   );
 }
 
-function Section({ title, children, id }: { title: string; children: React.ReactNode; id: string }) {
+/** `keep`: print the section on one page when it fits (short sections); long ones may split between rows. */
+function Section({ title, children, id, keep = true }: { title: string; children: React.ReactNode; id: string; keep?: boolean }) {
   return (
-    <section className="brief-section space-y-2" data-brief-section={id}>
+    <section className={`${keep ? 'brief-keep ' : ''}brief-section space-y-2`} data-brief-section={id}>
       <h2 className="brief-h2 text-base font-semibold text-accent-strong">{title}</h2>
       {children}
     </section>
@@ -79,7 +80,7 @@ export default function BriefDocument({ content: c, issue }: { content: BriefCon
         <Lines lines={c.requirements} testId="requirements" />
       </Section>
 
-      <Section title="Verdict per core-reset scheme" id="verdicts">
+      <Section title="Verdict per core-reset scheme" id="verdicts" keep={false}>
         <table className="table-eng brief-table">
           <thead><tr><th className="w-40">Scheme</th><th className="w-28">Verdict</th><th>Why</th></tr></thead>
           <tbody>
@@ -137,7 +138,7 @@ export default function BriefDocument({ content: c, issue }: { content: BriefCon
         <ul className="list-disc space-y-1 pl-5 text-sm">{c.assumptions.map((a) => <li key={a}>{a}</li>)}</ul>
       </Section>
 
-      <div className="brief-section"><SafetyCautionText /></div>
+      <div className="brief-keep"><SafetyCautionText /></div>
 
       <footer className="border-t border-line pt-3 text-xs text-muted">
         Requirement set “{c.spec.name}”, version {c.spec.version} · engine {c.engineVersion} · parts library {c.partsLibrary.name} {c.partsLibrary.version}

@@ -28,6 +28,7 @@ export default function StressChart({ bars }: { bars: BriefChartBar[] }) {
   const ticks = Array.from({ length: Math.round(top / step) + 1 }, (_, i) => i * step);
   return (
     <figure className="brief-figure" data-brief-chart>
+      <p className="mb-1 text-xs font-semibold text-muted">Primary switch voltage stress and rating, per scheme</p>
       <svg viewBox={`0 0 ${W} ${h}`} width="100%" role="img" aria-label="Primary switch voltage stress and chosen rating per scheme" className="block max-w-[640px]">
         {ticks.map((t) => (
           <g key={t}>
