@@ -3,7 +3,6 @@ import { categoryInfo } from './categories';
 import type { ImportPreview } from './csv-import';
 
 interface Props {
-  baseVersion: number;
   onApplied: (message: string) => void;
   onClose: () => void;
 }
@@ -25,7 +24,7 @@ const OP_LABEL = { add: 'Add', change: 'Change', retire: 'Retire' } as const;
 const show = (v: unknown): string => (v === null || v === undefined ? '—' : typeof v === 'object' ? (Array.isArray(v) ? v.map((t) => `${t.minQty}: ${t.unitPrice}`).join(' · ') : JSON.stringify(v)) : String(v));
 
 /** CSV import: choose a file, see what would change (and every row error), then apply or discard. */
-export default function ImportPanel({ baseVersion, onApplied, onClose }: Props) {
+export default function ImportPanel({ onApplied, onClose }: Props) {
   const input = useRef<HTMLInputElement>(null);
   const [file, setFile] = useState<File | null>(null);
   const [preview, setPreview] = useState<DryRunReply | null>(null);

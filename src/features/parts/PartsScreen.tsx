@@ -84,7 +84,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
         </span>
       </div>
       {message && <p className={`text-sm ${message.error ? 'text-fail' : 'text-ok'}`} role={message.error ? 'alert' : 'status'} data-parts-message>{message.text}</p>}
-      {importing && <ImportPanel baseVersion={version} onApplied={reload} onClose={() => setImporting(false)} />}
+      {importing && <ImportPanel onApplied={reload} onClose={() => setImporting(false)} />}
       {editing && (
         <PartForm key={editing === 'new' ? `new-${tab.key}` : editing.id} category={tab} part={editing === 'new' ? null : editing} currency={library.currency} baseVersion={version}
           onDone={reload} onCancel={() => setEditing(null)} />
@@ -128,7 +128,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
                   <td><span className="font-mono text-xs whitespace-nowrap">{p.id}</span>{typeof p.description === 'string' && <div className="text-xs text-muted">{p.description}</div>}</td>
                   <td><span className={`rounded px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STATUS_STYLE[p.status]}`}>{STATUS_LABELS[p.status]}</span></td>
                   {tab.fields.map((f) => <td key={f.key} className={f.kind === 'number' ? 'num' : ''} title={f.kind === 'number' ? `${String(p[f.key])} (SI)` : undefined}>{displayValue(p[f.key], f.unit)}</td>)}
-                  <td className="num text-xs">{p.tiers.map((t) => `${qtyText(t.minQty)}+: ${t.unitPrice.toFixed(3)}`).join(' · ')}</td>
+                  <td className="num min-w-[11rem] text-xs !whitespace-normal">{p.tiers.map((t) => `${qtyText(t.minQty)}+: ${t.unitPrice.toFixed(3)}`).join(' · ')}</td>
                   {canEdit && (
                     <td className="whitespace-nowrap">
                       <button type="button" className="btn px-2 py-0.5" onClick={() => { setEditing(p); setImporting(false); }} aria-label={`Edit ${p.id}`}>Edit</button>{' '}
