@@ -1,0 +1,149 @@
+import type { NetlistPoint } from './operating-point';
+
+/** Context printed in the header (names only; no figures come from here). */
+export interface NetlistContext {
+  specName: string;
+  engineVersion: string;
+  libraryName: string;
+}
+
+/** Thermal voltage at 27 °C (k·T/q), the temperature the netlist sets with `.options TEMP=27`. */
+const VT_27C = 0.025865;
+/** Ratio IS/I at the full-load current for the rectifier model (keeps reverse leakage negligible). */
+const IS_PER_AMP = 1e-12;
+
+/** SPICE number: six significant digits in exponent form (ngspice reads `4.7e-06`). */
+export function spiceNumber(x: number): string {
+  if (!Number.isFinite(x)) throw new RangeError(`netlist value must be finite, got ${x}`);
+  return Number(x.toPrecision(6)).toExponential();
+}
+
+/**
+ * Diode emission coefficient N so that the diode drops `vfV` at `iA` with IS = 1e-12·iA
+ * (Shockley: V = N·VT·ln(I/IS); common practice for an idealised drop).
+ */
+export function emissionFor(vfV: number): number {
+  return Math.max(vfV, 0.01) / (VT_27C * Math.log(1 / IS_PER_AMP));
+}
+
+/** Timing of the transient run: settle the output filter (5 time constants) plus a measuring window. */
+export function runTiming(p: NetlistPoint): { periodS: number; stopS: number; fromS: number; maxStepS: number } {
+  const periodS = 1 / p.fswHz;
+  const rLoad = p.voutV / p.ioutA;
+  // Envelope of the LC filter with its load: 2RC when underdamped, L/R when overdamped (derived).
+  const tauS = Math.max(2 * rLoad * p.outputCapacitanceF, p.outputInductanceH / rLoad);
+  const periods = Math.min(4000, Math.ceil((5 * tauS) / periodS) + 30);
+  return { periodS, stopS: periods * periodS, fromS: (periods - 10) * periodS, maxStepS: periodS / 200 };
+}
+
+function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string): string[] {
+  const vc = p.duty / (1 - p.duty);
+  // ESR of Cc at 3 % of √(Lm/Cc): a lossless clamp never settles its slow Lm–Cc mode; real ones are damped by ESR and Rds(on).
+  const esr = 0.03 * Math.sqrt(p.lmH / (p.clampCapacitanceF ?? 1e-6));
+  switch (p.scheme) {
+    case 'tertiary-winding': {
+      const r = p.resetTurnsRatio ?? 1;
+      return [
+        `* Tertiary (reset) winding Nr/Np = ${n(r)}, dot at ground, returning the magnetizing energy to the input through DR`,
+        `LR 0 rk ${n(p.lmH * r * r)}`,
+        'K2 LP LR 1', 'K3 LS LR 1',
+        'DR rk in DIDEAL',
+      ];
+    }
+    case 'rcd-clamp':
+      return [
+        `* RCD clamp across the primary; design clamp voltage ${n(p.clampCapacitorV ?? 0)} V above the input`,
+        'DCL d cl DIDEAL',
+        `CCL cl in ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.clampCapacitorV ?? 0)}`,
+        `RCL cl in ${n(p.clampResistorOhm ?? 1e6)}`,
+      ];
+    case 'active-clamp':
+      return p.activeClampVariant === 'high-side'
+        ? [
+          '* Active clamp, high-side: clamp switch S2 and Cc across the primary, driven in the off time; Cc with a small damping ESR',
+          'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
+          `CC cc ce ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.vinV * vc)}`,
+          `RCC ce in ${n(esr)}`,
+          gate2,
+        ]
+        : [
+          '* Active clamp, low-side: clamp switch S2 and Cc from the drain to ground, driven in the off time; Cc with a small damping ESR',
+          'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
+          `CC cc ce ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.vinV / (1 - p.duty))}`,
+          `RCC ce 0 ${n(esr)}`,
+          gate2,
+        ];
+    case 'two-switch':
+      return ['* Two-switch clamp diodes return the magnetizing energy to the input bus', 'DA d in DIDEAL', 'DB 0 dt DIDEAL'];
+    case 'resonant-reset':
+      return [
+        '* Resonant reset: total drain-node capacitance (switch, winding and added capacitor) resonates with Lm',
+        `CR d 0 ${n(p.resonantCapacitanceF ?? 1e-9)} IC=${n(p.vinV)}`,
+      ];
+  }
+}
+
+/**
+ * Plain ngspice-compatible netlist of one scheme at one input voltage: ideal switches driven by
+ * PULSE sources at the engine's duty and frequency, coupled inductors for the transformer (unity
+ * coupling: the leakage allowances are the engine's own, not simulated), the scheme's reset
+ * parts, rectifiers, output L and C, the load, a `.tran` long enough to settle and `.meas` lines.
+ */
+export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
+  const n = spiceNumber;
+  const t = runTiming(p);
+  const tr = t.periodS / 1000;
+  const tOn = p.duty * t.periodS;
+  const twoSwitch = p.scheme === 'two-switch';
+  // The RCD clamp is sized by the engine for the magnetizing and the leakage energy, so its leakage is drawn (in the clamp loop).
+  const leaky = p.scheme === 'rcd-clamp' && p.llkH > 0;
+  const top = twoSwitch ? 'dt' : leaky ? 'pa' : 'in';
+  const bipolar = p.scheme === 'active-clamp' || p.scheme === 'resonant-reset';
+  const gate2 = `VG2 g2 0 PULSE(0 1 ${n(tOn + tr)} ${n(tr)} ${n(tr)} ${n(t.periodS - tOn - 3 * tr)} ${n(t.periodS)})`;
+  const rWinding = p.windingDropV / p.ioutA;
+  // Start at the beginning of an on time, near the steady state: inductor at its valley, D1 carrying it, and the
+  // magnetizing current at its start value (flux linkage consistent across the coupled windings, so no start-up kick).
+  const ilMinA = p.ioutA - p.expected.inductorRippleA / 2;
+  // Hazardous where the input or the switch node exceeds 60 V DC.
+  const safety = Math.max(p.vinV, p.expected.switchPeakV) > 60 ? ['* CAUTION: hazardous voltage. Isolation and creepage/clearance per the applicable safety standard (e.g. IEC 62368-1);',
+    '* defer to local codes and qualified engineers.'] : [];
+  const lines = [
+    `* Resetwise SPICE netlist - ${p.label} forward converter, ${ctx.specName}`,
+    `* Operating point: Vin = ${n(p.vinV)} V (${p.vinCase}), Vout = ${n(p.voutV)} V, Iout = ${n(p.ioutA)} A, fs = ${n(p.fswHz)} Hz, D = ${p.duty.toFixed(4)}`,
+    `* Transformer: n = Ns/Np = ${n(p.turnsRatio)}, Lm = ${n(p.lmH)} H (primary); output L = ${n(p.outputInductanceH)} H, C = ${n(p.outputCapacitanceF)} F`,
+    `* Engine ${ctx.engineVersion} at this input: switch peak ${n(p.expected.switchPeakV)} V, output ${n(p.expected.voutV)} V, inductor ripple ${n(p.expected.inductorRippleA)} A p-p`,
+    `* Parts library: ${ctx.libraryName}`,
+    `* Idealised models: ideal switches, unity-coupled windings (${leaky ? 'leakage only as a series inductor in the clamp loop' : 'no leakage'}, no winding capacitance), diodes with a fixed`,
+    '* drop at full load and no recovery, lossless L and C. Early trade-off only; verify the final design on the bench.',
+    ...safety,
+    '.options TEMP=27 TNOM=27 METHOD=GEAR',
+    '.model SWI SW(VT=0.5 VH=0.1 RON=1e-3 ROFF=1e7)',
+    `.model DRECT D(IS=${n(IS_PER_AMP * p.ioutA)} N=${n(emissionFor(p.rectifierDropV))})`,
+    `.model DIDEAL D(IS=1e-12 N=${n(emissionFor(0.03))})`,
+    `VIN in 0 DC ${n(p.vinV)}`,
+    `VG1 g1 0 PULSE(0 1 0 ${n(tr)} ${n(tr)} ${n(tOn - tr)} ${n(t.periodS)})`,
+    '* Main switch(es) with body diodes',
+    ...(twoSwitch ? ['S1 in dt g1 0 SWI', 'DB1 dt in DIDEAL', 'S1B d 0 g1 0 SWI', 'DB1B 0 d DIDEAL'] : ['S1 d 0 g1 0 SWI', 'DB1 0 d DIDEAL']),
+    '* Transformer (dots on the first node)',
+    `LP ${top} d ${n(p.lmH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`,
+    `LS sa 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
+    'K1 LP LS 1',
+    ...(leaky ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary, inside the clamp loop`, `LLK in pa ${n(p.llkH)}`] : []),
+    ...resetNetwork(p, n, gate2),
+    '* Forward and freewheeling rectifiers, output filter (winding/layout drop as a series resistance), load',
+    'D1 sa sw DRECT', 'D2 0 sw DRECT',
+    `LOUT sw lx ${n(p.outputInductanceH)} IC=${n(ilMinA)}`,
+    'VIL lx lw DC 0',
+    `RW lw out ${n(rWinding)}`,
+    `COUT out 0 ${n(p.outputCapacitanceF)} IC=${n(p.voutV)}`,
+    `RLOAD out 0 ${n(p.voutV / p.ioutA)}`,
+    `.tran ${n(t.maxStepS)} ${n(t.stopS)} 0 ${n(t.maxStepS)} UIC`,
+    `.meas tran vsw_pk MAX v(d) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
+    `.meas tran vout_avg AVG v(out) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
+    `.meas tran il_max MAX i(VIL) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
+    `.meas tran il_min MIN i(VIL) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
+    ".meas tran il_ripple PARAM='il_max-il_min'",
+    '.end',
+  ];
+  return lines.join('\n') + '\n';
+}

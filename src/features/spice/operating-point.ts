@@ -1,0 +1,73 @@
+import { WINDING_DROP_SHARE } from '../../engine/assumptions';
+import { waveforms, type NormalisedSpec, type PartsLibrary, type SchemeResult } from '../../engine';
+
+/** Which end of the input range (or the nominal input) a netlist is drawn at. */
+export type VinCase = 'min' | 'nom' | 'max';
+export const VIN_CASES: readonly VinCase[] = ['min', 'nom', 'max'];
+
+/**
+ * Everything a netlist needs for one scheme at one input voltage, in SI units, taken from the
+ * engine's result so that the simulator is checked against the very design the engine reports.
+ */
+export interface NetlistPoint {
+  scheme: SchemeResult['scheme'];
+  label: string;
+  vinCase: VinCase;
+  vinV: number;
+  voutV: number;
+  ioutA: number;
+  fswHz: number;
+  /** Duty at this input, D = K/Vin (K = Vin·D, constant in regulation). */
+  duty: number;
+  turnsRatio: number;
+  resetTurnsRatio: number | null;
+  lmH: number;
+  /** Leakage inductance (engine: Llk = leakageRatio·Lm), used where the reset network absorbs its energy. */
+  llkH: number;
+  rectifierDropV: number;
+  windingDropV: number;
+  outputInductanceH: number;
+  outputCapacitanceF: number;
+  clampCapacitorV: number | null;
+  clampResistorOhm: number | null;
+  clampCapacitanceF: number | null;
+  resonantCapacitanceF: number | null;
+  activeClampVariant: NormalisedSpec['activeClampVariant'];
+  magnetizingPeakA: number;
+  /** The engine's own figures at this input, for the header and the cross-check. */
+  expected: { switchPeakV: number; voutV: number; inductorRippleA: number };
+}
+
+/** Input voltage of a case. */
+export function vinOf(spec: NormalisedSpec, vinCase: VinCase): number {
+  return vinCase === 'min' ? spec.vinMinV : vinCase === 'max' ? spec.vinMaxV : spec.vinNomV;
+}
+
+/**
+ * Collects the operating point of one scheme result. The expected switch peak and inductor ripple
+ * come from the engine's idealised waveforms at this input (no leakage spike).
+ * Throws RangeError when the result has no usable design (e.g. no core fits).
+ */
+export function netlistPoint(spec: NormalisedSpec, result: SchemeResult, vinCase: VinCase, library: PartsLibrary): NetlistPoint {
+  const vinV = vinOf(spec, vinCase);
+  const d = result.details;
+  if (!(d.magnetizingInductanceH > 0) || !(result.turnsRatio > 0) || !(result.outputInductanceH > 0) || !(result.outputCapacitanceF > 0)) {
+    throw new RangeError(`${result.label}: the engine found no complete design for this requirement set, so there is no netlist to draw`);
+  }
+  const duty = d.voltSecondsV / vinV;
+  if (!(duty > 0 && duty < 1)) throw new RangeError(`${result.label}: duty at ${vinV} V would be ${duty.toFixed(3)}, outside (0, 1)`);
+  const windingDropV = WINDING_DROP_SHARE * spec.voutV;
+  const w = waveforms(spec, result.scheme, vinV, library);
+  const il = w.inductorA.map((p) => p.value);
+  const switchPeakV = Math.max(...w.drainV.map((p) => p.value));
+  return {
+    scheme: result.scheme, label: result.label, vinCase, vinV, voutV: spec.voutV, ioutA: spec.ioutA, fswHz: spec.fswHz,
+    duty, turnsRatio: result.turnsRatio, resetTurnsRatio: result.resetTurnsRatio, lmH: d.magnetizingInductanceH, llkH: d.leakageInductanceH,
+    rectifierDropV: d.dropsV - windingDropV, windingDropV,
+    outputInductanceH: result.outputInductanceH, outputCapacitanceF: result.outputCapacitanceF,
+    clampCapacitorV: result.clampCapacitorV, clampResistorOhm: d.clampResistorOhm, clampCapacitanceF: d.clampCapacitanceF,
+    resonantCapacitanceF: d.resonantCapacitanceF, activeClampVariant: spec.activeClampVariant,
+    magnetizingPeakA: result.magnetizingPeakA,
+    expected: { switchPeakV, voutV: spec.voutV, inductorRippleA: Math.max(...il) - Math.min(...il) },
+  };
+}
