@@ -85,7 +85,11 @@ export default function BriefWorkspace({ initial, canWrite, outboxHref, initialV
     const body = { to: sendForm.to, ...(sendForm.cc.trim() ? { cc: sendForm.cc } : {}), ...(sendForm.message.trim() ? { message: sendForm.message } : {}) };
     const result = await api<{ version: number; sentTo: string[]; share: { url: string; expiresAt: string }; mail: { status: string } }>('POST', `/api/v1/briefs/${encodeURIComponent(brief.id)}/send`, body);
     setBusy(false);
-    if (!result.ok) return setSendProblem(result.problem);
+    if (!result.ok) {
+      setSendProblem(result.problem);
+      if (result.problem.status === 502) await refresh(); // the version and its link were made all the same
+      return;
+    }
     const where = result.data.mail.status === 'captured' ? ' It was captured by the local mail server (demo mode) and is listed in the Outbox.' : '';
     setLink({ url: result.data.share.url, expiresAt: result.data.share.expiresAt, version: result.data.version, note: `Version ${result.data.version} sent to ${result.data.sentTo.join(', ')}.${where}` });
     await refresh();
