@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import { useStore } from '@nanostores/react';
+import { $saved } from '../../stores/saved';
 import type { SchemeResult, TraceEntry } from '../../engine';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { formatSi } from '../../lib/si';
@@ -14,6 +16,8 @@ interface Props {
   rectifier: 'diode' | 'synchronous';
   /** Caption under the score; default "score · rank N of M". */
   rankText?: string;
+  /** SPICE netlist download URL without `vin` (the card adds `vin=min|nom|max`); no link when absent. */
+  netlistHref?: string;
 }
 
 const VERDICT_CLASS = {
@@ -42,8 +46,11 @@ function TraceDetail({ label, entry }: { label: string; entry: TraceEntry }) {
 }
 
 /** One reset scheme: verdict and reasons, key figures (each explainable), score and rank, schematic. */
-export default function SchemeCard({ result, rank, of, stale, activeClampVariant, rectifier, rankText }: Props) {
+export default function SchemeCard({ result, rank, of, stale, activeClampVariant, rectifier, rankText, netlistHref }: Props) {
   const [selected, setSelected] = useState<string | null>(null);
+  // On Compare the saved set's id gives the netlist of its saved version; elsewhere the caller passes the link.
+  const savedId = useStore($saved).specId;
+  const netlistUrl = netlistHref ?? (savedId ? `/api/v1/specs/${encodeURIComponent(savedId)}/netlist?scheme=${result.scheme}` : undefined);
   const style = SCHEME_STYLES[result.scheme];
   const verdict = verdictOf(result);
   const reasons = result.findings.filter((f) => f.severity !== 'info');
@@ -113,6 +120,14 @@ export default function SchemeCard({ result, rank, of, stale, activeClampVariant
             <summary className="cursor-pointer">Notes ({notes.length})</summary>
             <ul className="mt-1 list-disc space-y-0.5 pl-4">{notes.map((n) => <li key={n.code}>{n.message}</li>)}</ul>
           </details>
+        )}
+        {netlistUrl && (
+          <p className="mt-2 text-xs" data-netlist>
+            <span className="text-muted">SPICE netlist{netlistHref ? '' : ' (saved version)'} at V<sub>in</sub>: </span>
+            {(['min', 'nom', 'max'] as const).map((vin, i) => (
+              <span key={vin}>{i > 0 && ' · '}<a className="text-accent hover:underline" href={`${netlistUrl}${netlistUrl.includes('?') ? '&' : '?'}vin=${vin}`} download>{vin}</a></span>
+            ))}
+          </p>
         )}
       </div>
     </article>

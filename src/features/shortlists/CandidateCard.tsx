@@ -21,6 +21,7 @@ export default function CandidateCard({ shortlistId, candidate, rank, of, chosen
         result={candidate.result} rank={rank ?? 0} of={of} stale={false}
         rankText={rank === null ? 'engine score' : `score · ballot rank ${rank} of ${of}`}
         activeClampVariant={candidate.variant.activeClampVariant} rectifier={candidate.variant.rectifier}
+        netlistHref={`/api/v1/shortlists/${encodeURIComponent(shortlistId)}/candidates/${encodeURIComponent(candidate.id)}/netlist`}
       />
       <div className="space-y-1 px-1 text-xs">
         {candidate.note && <p><span className="font-semibold">Note:</span> {candidate.note}</p>}
