@@ -2,14 +2,14 @@ import { useStore } from '@nanostores/react';
 import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { $evaluation } from '../../stores/evaluation';
 import { markRendered } from '../../lib/perf';
-import { ensureLoaded, type CompareInitial } from './init';
+import { ensureLoaded } from './init';
 
 // Chart.js is most of the page's script; it loads when the charts come near the viewport.
 const CompareCharts = lazy(() => import('./charts/CompareCharts'));
 
 /** The charts island: follows the live comparison like the cards. */
-export default function ChartsPanel({ initial }: { initial: CompareInitial }) {
-  ensureLoaded(initial);
+export default function ChartsPanel() {
+  ensureLoaded();
   const { comparison, current } = useStore($evaluation);
   const anchor = useRef<HTMLDivElement>(null);
   const [near, setNear] = useState(false);

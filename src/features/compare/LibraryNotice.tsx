@@ -2,7 +2,7 @@ import { useStore } from '@nanostores/react';
 import { useState } from 'react';
 import { $dirty, $saved, saveSpec } from '../../stores/saved';
 import { api } from './api';
-import { ensureLoaded, type CompareInitial, type StoredResult } from './init';
+import { compareInitial, ensureLoaded, type StoredResult } from './init';
 
 type Row = StoredResult['results'][number];
 
@@ -18,8 +18,9 @@ const pct = (value: number): string => (Number.isFinite(value) ? `${(value * 100
  * "Parts library changed since this result": shown on a saved set whose stored comparison used an
  * older library version. Re-evaluates on the server on request; editors may save the fresh result.
  */
-export default function LibraryNotice({ initial, canSave }: { initial: CompareInitial; canSave: boolean }) {
-  ensureLoaded(initial);
+export default function LibraryNotice({ canSave }: { canSave: boolean }) {
+  ensureLoaded();
+  const initial = compareInitial();
   const dirty = useStore($dirty);
   const saved = useStore($saved);
   const [fresh, setFresh] = useState<Row[] | null>(null);

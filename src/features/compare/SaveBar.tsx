@@ -2,7 +2,7 @@ import { useStore } from '@nanostores/react';
 import { $dirty, $saved, createSpecFromDraft, reloadSpec, saveSpec } from '../../stores/saved';
 import { $evaluation } from '../../stores/evaluation';
 import { $draftMeta } from '../../stores/spec-draft';
-import { ensureLoaded, type CompareInitial } from './init';
+import { ensureLoaded } from './init';
 
 function download(name: string, type: string, text: string): void {
   const url = URL.createObjectURL(new Blob([text], { type }));
@@ -16,8 +16,8 @@ function download(name: string, type: string, text: string): void {
 const fileStem = (name: string): string => (name.trim() || 'comparison').replace(/[^\w.-]+/g, '-').replace(/-+/g, '-').slice(0, 60);
 
 /** Saved/unsaved state, save with version check, conflict choices, and exports. */
-export default function SaveBar({ initial, canSave }: { initial: CompareInitial; canSave: boolean }) {
-  ensureLoaded(initial);
+export default function SaveBar({ canSave }: { canSave: boolean }) {
+  ensureLoaded();
   const saved = useStore($saved);
   const dirty = useStore($dirty);
   const { comparison, requirements } = useStore($evaluation);

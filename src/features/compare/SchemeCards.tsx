@@ -4,11 +4,11 @@ import { $evaluation } from '../../stores/evaluation';
 import { markRendered } from '../../lib/perf';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import SchemeCard from './SchemeCard';
-import { ensureLoaded, type CompareInitial } from './init';
+import { ensureLoaded } from './init';
 
 /** Every scheme side by side, in a fixed order (ranks shown on each card and in the strip). */
-export default function SchemeCards({ initial }: { initial: CompareInitial }) {
-  ensureLoaded(initial);
+export default function SchemeCards() {
+  ensureLoaded();
   const { comparison, current } = useStore($evaluation);
   useEffect(() => markRendered('cards'), [comparison, current]);
   if (!comparison) {

@@ -4,10 +4,9 @@ import { $draftFields, $draftMeta, setDraftField, setDraftMeta } from '../../sto
 import { $evaluation } from '../../stores/evaluation';
 import { parseQuantity } from '../../lib/units';
 import { CHOICE_FIELDS, NUMERIC_FIELDS, fieldText, type NumericField } from './fields';
-import { ensureLoaded, type CompareInitial } from './init';
+import { ensureLoaded } from './init';
 
 interface Props {
-  initial: CompareInitial;
   /** Form editable (what-if) — false for read-only roles. */
   editable: boolean;
   /** Name and customer are shown for saved sets. */
@@ -46,8 +45,8 @@ function NumericInput({ field, text, error, editable }: { field: NumericField; t
 }
 
 /** The requirement-set form: unit-aware inputs, parsed values shown, errors from the shared schema. */
-export default function SpecForm({ initial, editable, showMeta }: Props) {
-  ensureLoaded(initial);
+export default function SpecForm({ editable, showMeta }: Props) {
+  ensureLoaded();
   const fields = useStore($draftFields);
   const meta = useStore($draftMeta);
   const { errors } = useStore($evaluation);

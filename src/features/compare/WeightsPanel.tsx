@@ -1,7 +1,7 @@
 import { useStore } from '@nanostores/react';
 import { $weights, resetWeights, setWeight } from '../../stores/weights';
 import type { ScoreWeights } from '../../schemas/spec';
-import { ensureLoaded, type CompareInitial } from './init';
+import { ensureLoaded } from './init';
 
 const WEIGHTS: { key: keyof ScoreWeights; label: string; hint: string }[] = [
   { key: 'stress', label: 'Switch stress', hint: 'lower off-state voltage and rating' },
@@ -12,8 +12,8 @@ const WEIGHTS: { key: keyof ScoreWeights; label: string; hint: string }[] = [
 ];
 
 /** Score weights; the ranking on every card follows them live. */
-export default function WeightsPanel({ initial }: { initial: CompareInitial }) {
-  ensureLoaded(initial);
+export default function WeightsPanel() {
+  ensureLoaded();
   const weights = useStore($weights);
   const total = WEIGHTS.reduce((sum, w) => sum + weights[w.key], 0);
   return (

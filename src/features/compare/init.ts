@@ -20,12 +20,31 @@ export interface CompareInitial {
   stored?: StoredResult | null;
 }
 
+/** Id of the one JSON element CompareScreen.astro writes the page's data into. */
+export const COMPARE_INITIAL_ID = 'compare-initial';
+
+let cached: CompareInitial | undefined;
+
+/**
+ * The page's requirement set, parts library and stored result, written once into the page
+ * (not into every island's props: the library alone is most of the page).
+ */
+export function compareInitial(): CompareInitial {
+  if (!cached) {
+    const element = document.getElementById(COMPARE_INITIAL_ID);
+    if (!element?.textContent) throw new Error(`#${COMPARE_INITIAL_ID} is missing from the page`);
+    cached = JSON.parse(element.textContent) as CompareInitial;
+  }
+  return cached;
+}
+
 let loaded = false;
 
 /** Loads the page's requirement set and parts library into the stores once, whichever island mounts first. */
-export function ensureLoaded(initial: CompareInitial): void {
+export function ensureLoaded(): void {
   if (loaded || $saved.get().snapshot !== '') return;
   loaded = true;
+  const initial = compareInitial();
   loadLibrary(initial.library);
   loadSpec(initial.spec, initial.requirements);
 }
