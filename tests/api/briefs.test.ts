@@ -249,3 +249,14 @@ describe('briefs: send and share', () => {
     expect((await fetch(`${server.url}/briefs/${brief.id}`, { redirect: 'manual' })).status).toBe(302);
   });
 });
+
+describe('briefs in the OpenAPI document', () => {
+  it('lists every briefs route with its methods', async () => {
+    const doc = await (await fetch(`${server.url}/api/v1/openapi.json`)).json();
+    expect(Object.keys(doc.paths['/briefs']).sort()).toEqual(['get', 'post']);
+    expect(Object.keys(doc.paths['/briefs/{id}']).sort()).toEqual(['get', 'put']);
+    expect(Object.keys(doc.paths['/briefs/{id}/send'])).toEqual(['post']);
+    expect(Object.keys(doc.paths['/briefs/{id}/share']).sort()).toEqual(['delete', 'post']);
+    expect(doc.paths['/briefs/{id}/send'].post.requestBody.content['application/json'].schema.required).toEqual(['to']);
+  });
+});
