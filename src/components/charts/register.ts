@@ -12,11 +12,12 @@ import {
   LineController,
   LineElement,
   PointElement,
+  ScatterController,
   Title,
   Tooltip,
 } from 'chart.js';
 
-Chart.register(LineController, BarController, LineElement, PointElement, BarElement, LinearScale, CategoryScale, Legend, Tooltip, Title);
+Chart.register(LineController, BarController, ScatterController, LineElement, PointElement, BarElement, LinearScale, CategoryScale, Legend, Tooltip, Title);
 
 Chart.defaults.font.family = "'Noto Sans', ui-sans-serif, system-ui, sans-serif";
 Chart.defaults.font.size = 12;
