@@ -4,6 +4,7 @@ import { $draftFields, $draftMeta, loadDraft } from './spec-draft';
 import { $evaluation } from './evaluation';
 import { $weights, loadWeights } from './weights';
 import { loadOverrides } from './overrides';
+import { withSweepHandoff } from '../features/sweep/handoff';
 
 export type SaveStatus = 'idle' | 'saving' | 'saved' | 'conflict' | 'error';
 
@@ -27,7 +28,7 @@ export const $dirty = computed([$draftFields, $draftMeta, $weights, $saved], (fi
 
 /** Loads a saved requirement set into every store. */
 export function loadSpec(spec: SpecPayload | null, requirements: Record<string, unknown>): void {
-  const { weights, overrides, ...rest } = requirements as Record<string, unknown> & { weights?: never; overrides?: never };
+  const { weights, overrides, ...rest } = withSweepHandoff(requirements) as Record<string, unknown> & { weights?: never; overrides?: never };
   loadDraft(rest, { name: spec?.name ?? '', customer: spec?.customer ?? '' });
   loadWeights(weights);
   loadOverrides(overrides);
