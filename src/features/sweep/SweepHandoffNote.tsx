@@ -9,14 +9,14 @@ export default function SweepHandoffNote() {
   const clear = (): void => window.location.assign(window.location.pathname);
   if (error) {
     return (
-      <p className="card border-fail/40 bg-fail-soft px-3 py-2 text-sm text-fail" role="alert" data-sweep-handoff-error>
+      <p className="card mb-4 border-fail/40 bg-fail-soft px-3 py-2 text-sm text-fail" role="alert" data-sweep-handoff-error>
         {error} <button type="button" className="ml-2 underline" onClick={clear}>Open the saved set</button>
       </p>
     );
   }
   if (!applied) return null;
   return (
-    <div className="card flex flex-wrap items-start justify-between gap-2 bg-accent-soft px-3 py-2 text-sm" role="status" data-sweep-handoff>
+    <div className="card mb-4 flex flex-wrap items-start justify-between gap-2 bg-accent-soft px-3 py-2 text-sm" role="status" data-sweep-handoff>
       <div>
         <p className="font-semibold">Design point from Sweep</p>
         <ul className="mt-0.5 space-y-0.5">
