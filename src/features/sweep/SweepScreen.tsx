@@ -7,7 +7,9 @@ import { DEFAULT_SETTINGS, planSweep, settingsProblems, type SweepSettings } fro
 import { overrideOf, pointAt, type DesignPoint } from './points';
 import type { SweepMessage, SweepRequest } from './protocol';
 
-const SweepChart = lazy(() => import('./SweepChart'));
+// Chart.js loads while the user sets up the sweep, so the first map does not wait for it.
+const loadChart = (): Promise<typeof import('./SweepChart')> => import('./SweepChart');
+const SweepChart = lazy(loadChart);
 type Done = Extract<SweepMessage, { type: 'done' }>;
 
 interface Props {
@@ -31,7 +33,10 @@ export default function SweepScreen({ specId, spec, library }: Props) {
   const started = useRef(0);
   const problems = settingsProblems(settings);
   const estimate = useMemo(() => (problems.length === 0 ? planSweep(spec, library, settings).total : 0), [settings]);
-  useEffect(() => () => worker.current?.terminate(), []);
+  useEffect(() => {
+    void loadChart();
+    return () => worker.current?.terminate();
+  }, []);
 
   const run = (): void => {
     if (problems.length > 0) return;
@@ -149,7 +154,7 @@ function FrontTable({ result, specId, fswHz, currency }: { result: Done; specId:
     <div className="overflow-x-auto">
       <table className="table-eng w-full text-sm" data-front-table>
         <caption className="text-left font-semibold">Overall Pareto front ({result.overall.length} points, cheapest first)</caption>
-        <thead><tr><th>Scheme</th><th>BOM cost</th><th>Total loss</th><th>η</th><th>f<sub>s</sub></th><th>Duty limit</th><th>N<sub>s</sub>/N<sub>p</sub></th><th>Main switch</th><th>Rectifier</th><th>Core</th><th><span className="sr-only">Open</span></th></tr></thead>
+        <thead><tr><th>Scheme</th><th>BOM cost</th><th>Total loss</th><th>Efficiency</th><th>Frequency</th><th>Duty limit</th><th>Turns ratio</th><th>Main switch</th><th>Rectifier</th><th>Core</th><th><span className="sr-only">Open</span></th></tr></thead>
         <tbody>
           {result.overall.map((i) => {
             const p = pointAt(result.plan, result.data, i);
