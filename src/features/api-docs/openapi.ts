@@ -5,6 +5,7 @@ import { newUserSchema, signInSchema, userPatchSchema } from '../../schemas/auth
 import { specInputSchema } from '../../schemas/spec';
 import { specCreateDocSchema, specUpdateDocSchema } from '../../schemas/specs-api';
 import { shortlistPaths } from './shortlist-paths';
+import { spicePaths } from '../spice/openapi-paths';
 import { shortlistPaths } from './shortlist-paths';
 import { comparisonSchema, problemSchema, specJsonSchema, staleSchema, userJsonSchema, briefJsonSchema, briefShareReplySchema, briefSummarySchema } from '../../schemas/responses';
 import { briefCreateSchema, briefSendDocSchema, briefShareSchema, briefUpdateSchema } from '../../schemas/briefs';
@@ -41,6 +42,7 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
     security: [{ session: [] }],
     paths: {
       ...shortlistPaths,
+      ...spicePaths,
       ...shortlistPaths,
       ...partsPaths,
       '/auth/sign-in': {
