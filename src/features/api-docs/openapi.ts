@@ -6,7 +6,6 @@ import { specInputSchema } from '../../schemas/spec';
 import { specCreateDocSchema, specUpdateDocSchema } from '../../schemas/specs-api';
 import { shortlistPaths } from './shortlist-paths';
 import { spicePaths } from '../spice/openapi-paths';
-import { shortlistPaths } from './shortlist-paths';
 import { comparisonSchema, problemSchema, specJsonSchema, staleSchema, userJsonSchema, briefJsonSchema, briefShareReplySchema, briefSummarySchema } from '../../schemas/responses';
 import { briefCreateSchema, briefSendDocSchema, briefShareSchema, briefUpdateSchema } from '../../schemas/briefs';
 
@@ -43,7 +42,6 @@ export function openApiDocument(): ReturnType<typeof createDocument> {
     paths: {
       ...shortlistPaths,
       ...spicePaths,
-      ...shortlistPaths,
       ...partsPaths,
       '/auth/sign-in': {
         post: op({ summary: 'Sign in', security: [], requestBody: body(signInSchema), responses: { '200': reply('signed in; sets the session cookie'), ...errors(400, 401, 429) } }),
