@@ -40,6 +40,8 @@ const TABLE: Record<string, Probe> = {
   'GET /share/[token]': { path: () => '/share/not-a-real-token-0123456789abcdef', expect: [404, 404, 404, 404, 404] },
   'GET /parts': { path: () => '/parts', expect: PAGE(200) },
   'GET /parts/history': { path: () => '/parts/history', expect: PAGE(200) },
+  'GET /sweep': { path: () => '/sweep', expect: [302, 403, 200, 200, 200] },
+  'GET /sweep/[id]': { path: () => '/sweep/demo-spec-1', expect: [302, 403, 200, 200, 200] },
   'GET /team': { path: () => '/team', expect: [302, 403, 403, 403, 200] },
   'GET /outbox': { path: () => '/outbox', expect: [302, 403, 403, 403, 200] },
 
@@ -64,6 +66,7 @@ const TABLE: Record<string, Probe> = {
   'GET /api/v1/specs/[id]/comparison': { path: () => '/api/v1/specs/demo-spec-1/comparison', expect: ALL(200) },
   // Customer spec import: admins, architects and sales (a JSON body is not the multipart upload it wants).
   'POST /api/v1/specs/import': { path: () => '/api/v1/specs/import', body: 'probe', expect: [401, 400, 403, 400, 400] },
+  'GET /api/v1/specs/[id]/netlist': { path: () => '/api/v1/specs/demo-spec-1/netlist?scheme=two-switch&vin=max', expect: ALL(200) },
   'GET /api/v1/uploads/[id]': { path: (f) => `/api/v1/uploads/${f.upload}`, expect: ALL(200) },
 
   // Shortlists: sales read decided ones only; engineers, architects, admins vote and propose; owners run them.
@@ -77,6 +80,8 @@ const TABLE: Record<string, Probe> = {
   'PUT /api/v1/shortlists/[id]/ballot': { path: (f) => `/api/v1/shortlists/${f.shortlist}/ballot`, body: 'probe', expect: [401, 403, 400, 400, 400] },
   'POST /api/v1/shortlists/[id]/close': { path: (f) => `/api/v1/shortlists/${f.shortlist}/close`, body: 'probe', expect: [401, 403, 403, 400, 400] },
   'POST /api/v1/shortlists/[id]/decision': { path: (f) => `/api/v1/shortlists/${f.shortlist}/decision`, body: 'probe', expect: [401, 403, 403, 400, 400] },
+  // A draft candidate's netlist: sales see decided shortlists only.
+  'GET /api/v1/shortlists/[id]/candidates/[candidateId]/netlist': { path: (f) => `/api/v1/shortlists/${f.shortlist}/candidates/${f.candidate}/netlist?vin=nom`, expect: [401, 403, 200, 200, 200] },
   'POST /api/v1/shortlists/[id]/withdraw': { path: (f) => `/api/v1/shortlists/${f.shortlist}/withdraw`, body: 'probe', expect: [401, 403, 403, 400, 400] },
 
   // Parts library: everyone reads; admins edit.

@@ -107,10 +107,10 @@ describe('fuzzed input', () => {
     for (const target of targets.filter((t) => t.kind === 'multipart')) {
       const before = await fingerprint();
       let tried = 0;
-      const send = async (name: string, bytes: Uint8Array, type: string) => {
+      const send = async (name: string, bytes: Uint8Array<ArrayBuffer> | Uint8Array, type: string) => {
         tried++;
         const form = new FormData();
-        form.append('file', new Blob([bytes], { type }), name);
+        form.append('file', new Blob([new Uint8Array(bytes)], { type }), name);
         const response = await fetch(`${server.url}/api/v1${fill(target.path)}`, { method: target.method, headers: { origin: server.url, cookie: admin }, body: form });
         expect(response.status, `${target.path} with ${name} (${bytes.length} bytes)`).toBeGreaterThanOrEqual(400);
         expect(response.status, `${target.path} with ${name}`).toBeLessThan(500);
