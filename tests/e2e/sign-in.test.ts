@@ -19,9 +19,9 @@ afterAll(async () => {
 
 // What each role's header must list (DESIGN.md roles; screens that exist so far).
 const expectedNav: Record<string, string[]> = {
-  admin: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs', 'Team', 'Outbox'],
-  architect: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs'],
-  engineer: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs'],
+  admin: ['Specs', 'Compare', 'Sweep', 'Shortlists', 'Parts library', 'Briefs', 'Team', 'Outbox'],
+  architect: ['Specs', 'Compare', 'Sweep', 'Shortlists', 'Parts library', 'Briefs'],
+  engineer: ['Specs', 'Compare', 'Sweep', 'Shortlists', 'Parts library', 'Briefs'],
   sales: ['Specs', 'Shortlists', 'Parts library', 'Briefs'],
 };
 
