@@ -3,7 +3,7 @@ import { api, type SpecPayload } from '../features/compare/api';
 import { $draftFields, $draftMeta, loadDraft } from './spec-draft';
 import { $evaluation } from './evaluation';
 import { $weights, loadWeights } from './weights';
-import { loadOverrides } from './overrides';
+import { $overrides, loadOverrides } from './overrides';
 import { withSweepHandoff } from '../features/sweep/handoff';
 
 export type SaveStatus = 'idle' | 'saving' | 'saved' | 'conflict' | 'error';
@@ -21,18 +21,27 @@ export interface SavedState {
 
 export const $saved = atom<SavedState>({ specId: null, version: 0, snapshot: '', status: 'idle', message: '', theirVersion: null });
 
-const snapshotNow = (): string => JSON.stringify([$draftFields.get(), $draftMeta.get(), $weights.get()]);
+const snapshotNow = (): string => JSON.stringify([$draftFields.get(), $draftMeta.get(), $weights.get(), $overrides.get()]);
 
-/** True when the form differs from what was last loaded or saved. */
-export const $dirty = computed([$draftFields, $draftMeta, $weights, $saved], (fields, meta, weights, saved) => JSON.stringify([fields, meta, weights]) !== saved.snapshot);
+/** True when the form (fields, name, weights, overrides) differs from what was last loaded or saved. */
+export const $dirty = computed([$draftFields, $draftMeta, $weights, $overrides, $saved], (fields, meta, weights, overrides, saved) => JSON.stringify([fields, meta, weights, overrides]) !== saved.snapshot);
 
-/** Loads a saved requirement set into every store. */
-export function loadSpec(spec: SpecPayload | null, requirements: Record<string, unknown>): void {
-  const { weights, overrides, ...rest } = withSweepHandoff(requirements) as Record<string, unknown> & { weights?: never; overrides?: never };
+function applyRequirements(spec: SpecPayload | null, requirements: Record<string, unknown>): void {
+  const { weights, overrides, ...rest } = requirements as Record<string, unknown> & { weights?: never; overrides?: never };
   loadDraft(rest, { name: spec?.name ?? '', customer: spec?.customer ?? '' });
   loadWeights(weights);
   loadOverrides(overrides);
+}
+
+/**
+ * Loads a saved requirement set into every store. A design point handed over from Sweep is
+ * applied on top afterwards, so it shows as unsaved changes that can be saved or discarded.
+ */
+export function loadSpec(spec: SpecPayload | null, requirements: Record<string, unknown>): void {
+  applyRequirements(spec, requirements);
   $saved.set({ specId: spec?.id ?? null, version: spec?.version ?? 0, snapshot: snapshotNow(), status: 'idle', message: '', theirVersion: null });
+  const handed = withSweepHandoff(requirements);
+  if (handed !== requirements) applyRequirements(spec, handed);
 }
 
 /**

@@ -84,6 +84,9 @@ describe('Sweep', () => {
     expect(note).toContain('Design point from Sweep');
     expect(note).toMatch(/duty limit 0\.\d{3}/);
     await page.waitForSelector(`[data-scheme-card="${scheme}"]`);
+    // The point is an unsaved change an architect may save as the set's next version.
+    expect(await page.locator('[data-save-state]').getAttribute('data-save-state')).toBe('unsaved');
+    expect(await page.getByRole('button', { name: 'Save', exact: true }).isEnabled()).toBe(true);
     await shot(page, 'sweep-handoff-compare-architect.png');
     await page.locator('[data-clear-sweep-point]').click();
     await page.waitForURL((url) => url.pathname.startsWith('/compare/') && !url.searchParams.has('overrides'));

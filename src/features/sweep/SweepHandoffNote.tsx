@@ -34,7 +34,7 @@ export default function SweepHandoffNote() {
           ))}
           {applied.fswHz !== null && <li>Switching frequency {formatSi(applied.fswHz, 'Hz')} (form)</li>}
         </ul>
-        <p className="mt-0.5 text-xs text-muted">Applied to this comparison only: the saved set is unchanged, and its Save button and SPICE netlists still refer to the saved values.</p>
+        <p className="mt-0.5 text-xs text-muted">Applied to this comparison as unsaved changes: save to keep it as the set's next version (architects and admins), or clear it. SPICE netlists refer to the saved version.</p>
       </div>
       <button type="button" className="btn" onClick={clear} data-clear-sweep-point>Clear sweep point</button>
     </div>
