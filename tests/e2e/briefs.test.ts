@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { startServer, type RunningServer } from '../helpers/server';
-import { islandsHydrated, launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { islandsHydrated, launchBrowser, SCREENSHOT_DIR, signInThroughForm } from '../helpers/browser';
 
 let server: RunningServer;
 let browser: Browser;
@@ -19,17 +19,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signedInPage(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await islandsHydrated(page);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('resetwise-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => url.pathname === '/specs');
-  return page;
-}
+const signedInPage = (email: string): Promise<Page> => signInThroughForm(browser, server.url, email);
 
 /** Page count and the text of a PDF (whitespace collapsed), read with pdf.js. */
 async function pdfText(pdf: Buffer): Promise<{ pages: number; text: string }> {

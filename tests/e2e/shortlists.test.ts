@@ -3,7 +3,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { startServer, type RunningServer } from '../helpers/server';
-import { islandsHydrated, launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { islandsHydrated, launchBrowser, SCREENSHOT_DIR, signInThroughForm } from '../helpers/browser';
 
 let server: RunningServer;
 let browser: Browser;
@@ -16,18 +16,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function as(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await context.newPage();
-  page.on('dialog', (dialog) => void dialog.accept());
-  await page.goto(`${server.url}/sign-in`);
-  await islandsHydrated(page);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('resetwise-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => url.pathname === '/specs');
-  return page;
-}
+const as = (email: string): Promise<Page> => signInThroughForm(browser, server.url, email, { acceptDialogs: true });
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
 
