@@ -30,3 +30,12 @@ export function formatSiRange(low: number, high: number, unit: string, digits = 
 export function formatPercent(fraction: number, digits = 3): string {
   return `${Number((fraction * 100).toPrecision(digits))} %`;
 }
+
+/**
+ * A voltage as the trade writes converter voltages: whole volts from 1000 V to 9999 V
+ * ("1073 V", "1200 V"), SI prefixes elsewhere ("48 V", "120 mV").
+ */
+export function formatVolts(value: number, digits = 3): string {
+  if (Number.isFinite(value) && Math.abs(value) >= 1000 && Math.abs(value) < 10_000) return `${Math.round(value)} V`;
+  return formatSi(value, 'V', digits);
+}

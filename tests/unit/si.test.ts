@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatPercent, formatSi, formatSiRange } from '../../src/lib/si';
+import { formatPercent, formatSi, formatSiRange, formatVolts } from '../../src/lib/si';
 
 describe('SI formatting', () => {
   it.each([
@@ -20,6 +20,14 @@ describe('SI formatting', () => {
   it('ranges share the unit', () => {
     expect(formatSiRange(36, 75, 'V')).toBe('36–75 V');
     expect(formatSiRange(500, 2000, 'V')).toBe('500 V – 2 kV');
+  });
+
+  it('volts: whole volts from 1 kV to 10 kV, as ratings are written', () => {
+    expect(formatVolts(1073.2)).toBe('1073 V');
+    expect(formatVolts(1200)).toBe('1200 V');
+    expect(formatVolts(850)).toBe('850 V');
+    expect(formatVolts(0.12)).toBe('120 mV');
+    expect(formatVolts(12_500)).toBe('12.5 kV');
   });
 
   it('percent', () => {

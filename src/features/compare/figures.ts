@@ -1,5 +1,5 @@
 import type { SchemeResult } from '../../engine';
-import { formatPercent, formatSi } from '../../lib/si';
+import { formatPercent, formatSi, formatVolts } from '../../lib/si';
 
 export interface Figure {
   label: string;
@@ -9,7 +9,7 @@ export interface Figure {
 }
 
 const v = (x: number | null | undefined, unit: string, digits = 3): string | null =>
-  x === null || x === undefined || !Number.isFinite(x) ? null : formatSi(x, unit, digits);
+  x === null || x === undefined || !Number.isFinite(x) ? null : unit === 'V' ? formatVolts(x, digits) : formatSi(x, unit, digits);
 const duty = (x: number): string => formatPercent(x, 3);
 /** A duty as a bare percentage number, one decimal: 0.3462 → "34.6". */
 const pct = (x: number): string => (x * 100).toFixed(1);

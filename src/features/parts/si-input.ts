@@ -45,5 +45,7 @@ export function displayValue(value: unknown, unit: string | undefined): string {
   if (typeof value !== 'number') return String(value ?? '—');
   const small = unit ? SMALL_UNITS[unit] : undefined;
   if (small) return `${Number((value * small.scale).toPrecision(3))} ${small.unit}`;
+  // Voltage classes read as the trade writes them: 1200 V, not 1.2 kV.
+  if (unit === 'V' && Math.abs(value) >= 1000 && Math.abs(value) < 10_000) return `${Number(value.toPrecision(4))} V`;
   return unit ? formatSi(value, unit) : String(Number(value.toPrecision(4)));
 }
