@@ -67,7 +67,7 @@ export function paretoFront(data: Float64Array, count: number, scheme: number | 
  * One representative point per cell of a cols×rows grid over the feasible cloud, per scheme, so a
  * chart draws a few thousand markers instead of every point (the fronts are always drawn in full).
  */
-export function thinForDisplay(data: Float64Array, count: number, schemes: number, cols = 240, rows = 160): { clouds: number[][]; bounds: { costMin: number; costMax: number; lossMin: number; lossMax: number } } {
+export function thinForDisplay(data: Float64Array, count: number, schemes: number, cols = 120, rows = 80): { clouds: number[][]; bounds: { costMin: number; costMax: number; lossMin: number; lossMax: number } } {
   let costMin = Infinity, costMax = -Infinity, lossMin = Infinity, lossMax = -Infinity;
   for (let i = 0; i < count; i++) {
     const o = i * STRIDE;
