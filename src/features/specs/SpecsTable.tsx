@@ -1,20 +1,9 @@
 import { useMemo, useState } from 'react';
 import { api } from '../compare/api';
+import type { SpecRow } from './spec-row';
 
-export interface SpecListRow {
-  id: string;
-  name: string;
-  customer: string;
-  owner: string;
-  input: string;
-  output: string;
-  power: string;
-  switching: string;
-  version: number;
-  updated: string;
-  archived: boolean;
-  requirements: Record<string, unknown>;
-}
+/** A row as the page hands it over (the hazard flag stays on the server). */
+export type SpecListRow = Omit<SpecRow, 'maxInputV'>;
 
 type SortKey = 'name' | 'customer' | 'owner' | 'updated';
 
