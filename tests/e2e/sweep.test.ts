@@ -44,7 +44,7 @@ describe('Sweep', () => {
     await shot(page, 'sweep-picker-architect.png');
     await page.locator('tr', { hasText: 'Brick 36–75 V' }).getByRole('link', { name: 'Sweep this set' }).click();
     await page.waitForSelector('[data-sweep]');
-    await expect(page.locator('[data-sweep-empty]').isVisible()).resolves.toBe(true);
+    await page.locator('[data-sweep-empty]').waitFor({ state: 'visible' });
 
     // Grow the frequency steps until the plan holds at least 100,000 points.
     const steps = page.getByLabel('Frequency steps (log-spaced)');
@@ -58,23 +58,26 @@ describe('Sweep', () => {
     await page.evaluate(() => { (window as unknown as { __longTasks: number[] }).__longTasks = []; });
     await page.locator('[data-run-sweep]').click();
     await page.waitForFunction(() => (window as unknown as { __sweepTiming?: unknown }).__sweepTiming !== undefined, undefined, { timeout: 120_000 });
-    const timing = await page.evaluate(() => (window as unknown as { __sweepTiming: { points: number; evaluateMs: number; workerMs: number; totalMs: number } }).__sweepTiming);
+    const timing = await page.evaluate(() => (window as unknown as { __sweepTiming: { points: number; workers: number; evaluateMs: number; workerMs: number; totalMs: number } }).__sweepTiming);
+    const b = await page.evaluate(() => (window as unknown as { __sweepBreakdown: Record<string, number | number[]> }).__sweepBreakdown);
     const longTasks = await page.evaluate(() => (window as unknown as { __longTasks: number[] }).__longTasks);
-    console.log(`Sweep: ${timing.points} design points, evaluated in ${timing.evaluateMs.toFixed(0)} ms (${Math.round(timing.points / timing.evaluateMs * 1000)} points/s), worker done at ${timing.workerMs.toFixed(0)} ms, fronts drawn ${timing.totalMs.toFixed(0)} ms after Run (goal 300 ms); main-thread tasks over 50 ms: ${longTasks.length ? longTasks.map((d) => d.toFixed(0)).join(', ') + ' ms' : 'none'}`);
+    const ms = (v: number | number[] | undefined): string => (Array.isArray(v) ? v.map((x) => x.toFixed(0)).join(' / ') : (v ?? NaN).toFixed(0)) + ' ms';
+    console.log(`Sweep: ${timing.points} design points on ${timing.workers} workers, all evaluated ${timing.evaluateMs.toFixed(0)} ms after Run (${Math.round(timing.points / timing.evaluateMs * 1000)} points/s), fronts drawn ${timing.totalMs.toFixed(0)} ms after Run (goal 300 ms); main-thread tasks over 50 ms: ${longTasks.length ? longTasks.map((d) => d.toFixed(0)).join(', ') + ' ms' : 'none'}`);
+    console.log(`Sweep breakdown (per worker a / b): warm-up at page load ${ms(b.warmMs)}; Run → job in worker ${ms(b.dispatchMs)}; evaluation ${ms(b.evaluateMs)}; fronts and extent in worker ${ms(b.frontsMs)}; hand-over (transfer) ${ms(b.transferMs)}; join on page ${ms(b.mergeMs)}; React commit with chart ${ms(b.renderMs)} (chart update and draw ${ms(b.chartMs)}, of which cloud bitmap ${ms(b.rasterMs)}); to painted frame ${ms(b.paintMs)}; total ${ms(b.totalMs)}`);
     expect(timing.points).toBe(planned);
+    expect(timing.workers).toBeGreaterThanOrEqual(1);
     expect(timing.totalMs).toBeLessThan(30_000); // generous bound; the figure is printed above
+    await page.waitForSelector('[data-front-row]');
     await expect(page.locator('[data-front-row]').count()).resolves.toBeGreaterThan(2);
+    // Every feasible point is painted in the cloud (none thinned away).
+    const figures = await page.locator('[data-sweep-figures]').innerText();
+    const feasible = Number(/([\d,]+) feasible/.exec(figures)![1]!.replace(/,/g, ''));
+    expect(feasible).toBeGreaterThan(0);
+    expect(Number(await page.locator('[data-sweep-chart]').getAttribute('data-cloud-points'))).toBe(feasible);
+    expect(await page.locator('[data-sweep-figures]').innerText()).toMatch(/101,920 points, [\d,]+ feasible · evaluated in \d+ ms on \d workers? \([\d,]+ points\/s\), drawn \d+ ms after Run/);
     await shot(page, 'sweep-map-architect.png');
 
-    // Hover the cheapest point of the overall front: the tooltip names the design point.
-    const first = await page.evaluate(() => {
-      const canvas = document.querySelector('[data-sweep-chart] canvas') as HTMLCanvasElement & { __chart?: unknown };
-      const rect = canvas.getBoundingClientRect();
-      return { left: rect.left, top: rect.top };
-    });
-    expect(first.left).toBeGreaterThanOrEqual(0);
-
-    // Keyboard/table route: open the cheapest front point in Compare.
+    // Table route: open the cheapest front point in Compare.
     const row = page.locator('[data-front-row]').first();
     const scheme = await row.getAttribute('data-front-row');
     await row.getByRole('link', { name: 'Open in Compare' }).click();
@@ -106,6 +109,54 @@ describe('Sweep', () => {
     expect(await page.locator('[data-cancelled]').innerText()).toMatch(/Cancelled after [\d,]+ of [\d,]+ points/);
     await page.context().close();
   }, 240_000);
+
+  it('an engineer reads a point by keyboard and by hover, and a click on the map opens it in Compare', async () => {
+    const page = await signedInPage('engineer@resetwise.example');
+    await page.goto(`${server.url}/sweep`);
+    await page.locator('tr', { hasText: 'Brick 36–75 V' }).getByRole('link', { name: 'Sweep this set' }).click();
+    await page.waitForSelector('[data-sweep-empty]');
+    await shot(page, 'sweep-empty-engineer.png');
+    await page.locator('[data-run-sweep]').click();
+    await page.waitForFunction(() => (window as unknown as { __sweepTiming?: unknown }).__sweepTiming !== undefined, undefined, { timeout: 60_000 });
+    await page.waitForSelector('[data-front-row]');
+    await shot(page, 'sweep-map-engineer.png');
+
+    // Keyboard: focus the map, the cheapest overall-front point is shown; → moves along the front, ↓ to a scheme's front.
+    const map = page.locator('[data-sweep-chart]');
+    await map.focus();
+    const tip = page.locator('[data-sweep-tooltip]');
+    await tip.waitFor();
+    const firstTip = await tip.innerText();
+    expect(firstTip).toContain('overall front');
+    expect(firstTip).toMatch(/BOM \d+\.\d{2} \w+ · loss [\d.]+ m?W · η \d+\.\d %/);
+    const cheapestRow = await page.locator('[data-front-row] td').nth(1).innerText();
+    expect(firstTip).toContain(`BOM ${cheapestRow}`);
+    await page.keyboard.press('ArrowRight');
+    expect(await tip.innerText()).not.toBe(firstTip);
+    await page.keyboard.press('ArrowDown');
+    expect(await tip.innerText()).toMatch(/(Tertiary winding|RCD clamp|Active clamp|Two-switch|Resonant reset) front/);
+    await shot(page, 'sweep-keyboard-engineer.png');
+
+    // Mouse: hover where the ring is (a front point), the tooltip shows it; a click opens it in Compare.
+    const ring = await page.locator('[data-sweep-ring]').boundingBox();
+    expect(ring).not.toBeNull();
+    const chosen = await tip.innerText();
+    await page.locator('[data-run-sweep]').focus();
+    await expect(tip.count()).resolves.toBe(0);
+    await page.mouse.move(ring!.x + ring!.width / 2, ring!.y + ring!.height / 2);
+    await tip.waitFor();
+    expect((await tip.innerText()).split('\n')[1]).toBe(chosen.split('\n')[1]);
+    await shot(page, 'sweep-hover-engineer.png');
+    // Off every point, no tooltip.
+    const box = (await map.boundingBox())!;
+    await page.mouse.move(box.x + 3, box.y + 3);
+    await expect(tip.count()).resolves.toBe(0);
+    await page.mouse.click(ring!.x + ring!.width / 2, ring!.y + ring!.height / 2);
+    await page.waitForURL((url) => url.pathname.startsWith('/compare/') && url.searchParams.has('overrides'));
+    await page.waitForSelector('[data-sweep-handoff]');
+    expect(await page.locator('[data-sweep-handoff]').innerText()).toMatch(/duty limit 0\.\d{3}/);
+    await page.context().close();
+  }, 120_000);
 
   it('a tampered hand-over is refused with a plain message', async () => {
     const page = await signedInPage('engineer@resetwise.example');

@@ -4,7 +4,10 @@ import { demoPartsLibrary, evaluateLean, parseSpecInput } from '../../src/engine
 import { decodeOverrides, encodeOverrides, handoffHref, readHandoff } from '../../src/features/sweep/handoff';
 import { DEFAULT_SETTINGS, frequencies, planSweep, settingsProblems } from '../../src/features/sweep/plan';
 import { overrideOf, pointAt } from '../../src/features/sweep/points';
-import { F, paretoFront, runSweep, STRIDE, thinForDisplay } from '../../src/features/sweep/run';
+import { drawCloud, nearestInCloud, rgbOf } from '../../src/features/sweep/cloud';
+import { joinBounds, joinFronts, paretoFront, summarise } from '../../src/features/sweep/fronts';
+import { assemble } from '../../src/features/sweep/pool';
+import { F, globalIndex, partRanges, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
 
 const parsed = parseSpecInput({ vinMinV: 18, vinNomV: 24, vinMaxV: 32, voutV: 5, ioutA: 10, fswHz: 200e3 });
 if (!parsed.ok) throw new Error('spec');
@@ -68,13 +71,98 @@ describe('Pareto front (both objectives minimised; derived)', () => {
       });
     }));
   });
-  test('thinning keeps every scheme represented and never more points than it got', () => {
-    const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 2, dutySteps: 2, varyRectifier: false });
-    const data = new Float64Array(plan.total * STRIDE);
-    const n = runSweep(spec, demoPartsLibrary, plan, data);
-    const { clouds } = thinForDisplay(data, n, plan.schemes.length);
-    expect(clouds.reduce((s, c) => s + c.length, 0)).toBeLessThanOrEqual(n);
-    for (const c of clouds) for (const i of c) expect(data[i * STRIDE + F.feasible]).toBe(1);
+  test('property: the bucketed summary finds the same per-scheme fronts as the full sort, ties included', () => {
+    fc.assert(fc.property(fc.array(fc.tuple(fc.integer({ min: 0, max: 2 }), fc.integer({ min: 0, max: 30 }), fc.integer({ min: 0, max: 30 }), fc.constantFrom(0, 1, 1)), { maxLength: 80 }), fc.integer({ min: 1, max: 16 }), (pts, buckets) => {
+      const d = new Float64Array(pts.length * STRIDE);
+      pts.forEach(([s, c, l, f], i) => { d[i * STRIDE] = s; d[i * STRIDE + F.cost] = c; d[i * STRIDE + F.lossW] = l; d[i * STRIDE + F.feasible] = f; });
+      const sum = summarise(d, pts.length, 3, buckets);
+      for (const s of [0, 1, 2]) expect(sum.fronts[s]).toEqual(paretoFront(d, pts.length, s));
+      expect(sum.feasible).toBe(pts.filter((p) => p[3] === 1).length);
+    }));
+  });
+  test('exact duplicates keep the lowest position (so part fronts join to the whole front)', () => {
+    const d = build([[5, 5, 1], [5, 5, 1], [4, 6, 1]]);
+    expect(paretoFront(d, 3, null)).toEqual([2, 0]);
+  });
+});
+
+describe('sweep split across workers (derived: a partition of the plan)', () => {
+  test.each([[0, 2], [1, 2], [1024, 2], [1025, 2], [101_920, 2], [5000, 3], [7, 1]])('%i points over %i parts: every index once, rising within a part', (total, parts) => {
+    const shares = partRanges(total, parts);
+    const seen = new Uint8Array(total);
+    for (const ranges of shares) {
+      let last = -1;
+      ranges.forEach(([a, b], k) => { expect(a).toBeGreaterThan(last); expect(b).toBeGreaterThan(a); last = b - 1; for (let g = a; g < b; g++) seen[g]!++; expect(globalIndex(ranges, rangeCount(ranges.slice(0, k)))).toBe(a); });
+    }
+    expect(seen.every((n) => n === 1)).toBe(true);
+    expect(shares.reduce((n, r) => n + rangeCount(r), 0)).toBe(total);
+    // Interleaved chunks: no part gets more than one chunk more than another.
+    const counts = shares.map((r) => r.length);
+    expect(Math.max(...counts) - Math.min(...counts)).toBeLessThanOrEqual(1);
+  });
+  test('a part count below one is refused', () => {
+    expect(() => partRanges(10, 0)).toThrow(RangeError);
+  });
+
+  test('two parts, evaluated apart and assembled, equal the whole run: same numbers, fronts and extent', () => {
+    const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 3, dutySteps: 2 });
+    const whole = new Float64Array(plan.total * STRIDE);
+    expect(runSweep(spec, demoPartsLibrary, plan, whole)).toBe(plan.total);
+    const shares = partRanges(plan.total, 2, 97);
+    const parts = shares.map((ranges) => {
+      const count = rangeCount(ranges);
+      const data = new Float64Array(count * STRIDE);
+      expect(runSweep(spec, demoPartsLibrary, plan, data, undefined, 5000, ranges)).toBe(count);
+      const sum = summarise(data, count, plan.schemes.length);
+      return { type: 'part' as const, job: 1, ranges, data, count, feasible: sum.feasible, bounds: sum.bounds, fronts: sum.fronts.map((f) => f.map((i) => globalIndex(ranges, i))), times: { receivedAt: 0, evaluatedAt: 0, summarisedAt: 0 }, arrivedAt: 0 };
+    });
+    const joined = assemble(plan, parts, 0);
+    expect(joined.count).toBe(plan.total);
+    expect(joined.data).toEqual(whole);
+    plan.schemes.forEach((_, s) => expect(joined.fronts[s]).toEqual(paretoFront(whole, plan.total, s)));
+    expect(joined.overall).toEqual(paretoFront(whole, plan.total, null));
+    const all = summarise(whole, plan.total, plan.schemes.length);
+    expect(joined.feasible).toBe(all.feasible);
+    expect(joined.bounds).toEqual(all.bounds);
+    expect(joined.feasible).toBeGreaterThan(0);
+    expect(joinFronts(whole, [all.fronts], plan.schemes.length).fronts).toEqual(all.fronts);
+  });
+  test('joining extents skips parts with nothing feasible', () => {
+    expect(joinBounds([{ feasible: 0, bounds: { costMin: 0, costMax: 0, lossMin: 0, lossMax: 0 } }, { feasible: 2, bounds: { costMin: 3, costMax: 4, lossMin: 1, lossMax: 2 } }]))
+      .toEqual({ costMin: 3, costMax: 4, lossMin: 1, lossMax: 2 });
+  });
+});
+
+describe('cloud bitmap and hover lookup', () => {
+  // Three points: scheme 0 at cost 1 / loss 1, scheme 1 at cost 3 / loss 2, an infeasible one at cost 2 / loss 1.
+  const d = new Float64Array(3 * STRIDE);
+  [[0, 1, 1, 1], [1, 3, 2, 1], [0, 2, 1, 0]].forEach(([s, c, l, f], i) => { d[i * STRIDE] = s!; d[i * STRIDE + F.cost] = c!; d[i * STRIDE + F.lossW] = l!; d[i * STRIDE + F.feasible] = f!; });
+  // 10 px per unit of cost from cost 0; loss 3 at the top, −10 px per W.
+  const map = { costAt0: 0, xPerCost: 10, lossAt0: 3, yPerLoss: -10 };
+  const layer = drawCloud(d, 3, [rgbOf('#2364aa'), rgbOf('#c75a12')], map, 40, 40, 2, 0.5, 8);
+  const at = (x: number, y: number): number[] => Array.from(layer.pixels.slice((y * 40 + x) * 4, (y * 40 + x) * 4 + 4));
+  test('each feasible point is a dot in its scheme colour, at the opacity asked; nothing else is painted', () => {
+    expect(rgbOf('#2364aa')).toEqual([0x23, 0x64, 0xaa]);
+    expect(at(10, 20)).toEqual([0x23, 0x64, 0xaa, 128]); // cost 1 → x 10, loss 1 → y 20
+    expect(at(30, 10)).toEqual([0xc7, 0x5a, 0x12, 128]); // cost 3 → x 30, loss 2 → y 10
+    expect(at(20, 20)[3]).toBe(0); // the infeasible point is not drawn
+    let painted = 0;
+    for (let p = 3; p < layer.pixels.length; p += 4) if (layer.pixels[p]! > 0) painted++;
+    expect(painted).toBe(8); // two 2×2 dots
+    expect(layer.drawn).toBe(2);
+    expect(Number.isNaN(layer.px[2]!)).toBe(true);
+  });
+  test('overlapping dots deepen (source-over: 1 − (1 − a)²)', () => {
+    const two = new Float64Array(2 * STRIDE);
+    for (const i of [0, 1]) { two[i * STRIDE + F.cost] = 1; two[i * STRIDE + F.lossW] = 1; two[i * STRIDE + F.feasible] = 1; }
+    const l = drawCloud(two, 2, [[0, 0, 0]], map, 40, 40, 2, 0.5);
+    expect(Math.abs(l.pixels[(20 * 40 + 10) * 4 + 3]! - 0.75 * 255)).toBeLessThanOrEqual(1); // within one 8-bit step
+  });
+  test('the nearest drawn point within the radius, or −1', () => {
+    expect(nearestInCloud(layer, 12, 19, 6)).toBe(0);
+    expect(nearestInCloud(layer, 27, 12, 6)).toBe(1);
+    expect(nearestInCloud(layer, 20, 20, 6)).toBe(-1); // only the infeasible point is near
+    expect(nearestInCloud(layer, 0, 39, 6)).toBe(-1);
   });
 });
 

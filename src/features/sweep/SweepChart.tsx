@@ -1,95 +1,228 @@
-import { useEffect, useMemo, useRef } from 'react';
+import { memo, useEffect, useMemo, useRef, useState, type KeyboardEvent, type MouseEvent } from 'react';
 import { Scatter } from 'react-chartjs-2';
-import type { ChartData, ChartOptions, Chart as ChartType } from 'chart.js';
-import '../../components/charts/register';
+import type { ChartData, ChartOptions, Chart as ChartType, Plugin } from 'chart.js';
+import { Chart } from '../../components/charts/register';
 import { SCHEME_LABELS } from '../../engine/scheme-ids';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { formatSi } from '../../lib/si';
-import type { SweepMessage } from './protocol';
+import { drawCloud, nearestInCloud, rgbOf, type CloudLayer } from './cloud';
+import type { SweepResult } from './pool';
 import { pointAt, type DesignPoint } from './points';
 import { F, STRIDE } from './run';
 
-type Done = Extract<SweepMessage, { type: 'done' }>;
 interface XY { x: number; y: number; i: number }
+type Sc = ChartType<'scatter', XY[]>;
+
+/** How long the map took to appear (epoch ms). */
+export interface DrawTimes { committedAt: number; rasterMs: number; chartMs: number; paintedAt: number }
 
 interface Props {
-  result: Done;
+  result: SweepResult | null;
   currency: string;
   onPick: (p: DesignPoint) => void;
-  /** Called once the chart has painted. */
-  onDrawn: () => void;
+  /** Called once the chart has painted a new result. */
+  onDrawn: (t: DrawTimes) => void;
+  /** What to say over the map when there is nothing to show: before the first run, during it, or when no point is feasible. */
+  notice: 'empty' | 'running' | 'infeasible' | null;
 }
 
-const alpha = (hex: string, a: number): string => `${hex}${Math.round(a * 255).toString(16).padStart(2, '0')}`;
+function Notice({ kind }: { kind: NonNullable<Props['notice']> }) {
+  if (kind === 'running') return <p className="rounded bg-panel/90 p-3 text-sm text-muted">Evaluating the design points…</p>;
+  if (kind === 'infeasible') return <p className="max-w-md rounded bg-warn-soft p-3 text-center text-sm text-warn" data-no-feasible>No design point of this sweep is feasible. Widen the frequency range, allow more duty-limit steps, or vary the parts.</p>;
+  return <p className="max-w-md rounded bg-panel/90 p-3 text-center text-sm text-muted" data-sweep-empty>Choose what to vary and run the sweep: every design point is evaluated in the browser on the engine's lean path, and the cost-versus-loss map appears here.</p>;
+}
 
-/** BOM cost against total loss: a thinned cloud per scheme, each scheme's Pareto front, and the overall front on top. */
-export default function SweepChart({ result, currency, onPick, onDrawn }: Props) {
-  const chartRef = useRef<ChartType<'scatter', XY[]>>(null);
-  const { plan, data } = result;
-  const xy = (i: number): XY => ({ x: data[i * STRIDE + F.cost]!, y: data[i * STRIDE + F.lossW]!, i });
-  const chartData = useMemo((): ChartData<'scatter', XY[]> => ({
-    datasets: [
-      {
-        label: 'Overall Pareto front', data: result.overall.map(xy), showLine: true, borderColor: '#1e2622', backgroundColor: '#1e2622',
-        borderWidth: 2.5, pointRadius: 4.5, pointHoverRadius: 7, pointStyle: 'crossRot', order: 0,
+const now = (): number => performance.timeOrigin + performance.now();
+const INK = '#1e2622';
+
+/** Axis range around [lo, hi] with 4 % room each side (a single value gets ±5 %). */
+function padded(lo: number, hi: number): { min: number; max: number } {
+  const span = hi - lo || Math.abs(hi) * 0.1 || 1;
+  return { min: Math.max(0, lo - 0.04 * span), max: hi + 0.04 * span };
+}
+
+/**
+ * BOM cost against total loss. Every feasible point is painted as one bitmap under the chart (no
+ * per-point chart objects); Chart.js draws the axes, each scheme's Pareto front and the overall front.
+ * Hover, click and the keyboard (arrows along the fronts, Enter) find points in the full result.
+ */
+function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
+  const chartRef = useRef<Sc>(null);
+  const boxRef = useRef<HTMLDivElement>(null);
+  const resultRef = useRef(result);
+  resultRef.current = result;
+  const layerRef = useRef<{ key: string; result: SweepResult; layer: CloudLayer; canvas: HTMLCanvasElement } | null>(null);
+  const drawRef = useRef({ start: 0, rasterMs: 0, chartMs: 0 });
+  const [hover, setHover] = useState<{ i: number; x: number; y: number } | null>(null);
+  const [cursor, setCursor] = useState<{ front: number; pos: number } | null>(null);
+
+  const fronts = useMemo((): number[][] => (result ? [result.overall, ...result.fronts] : []), [result]);
+  const chartData = useMemo((): ChartData<'scatter', XY[]> => {
+    if (!result) return { datasets: [] };
+    const xy = (i: number): XY => ({ x: result.data[i * STRIDE + F.cost]!, y: result.data[i * STRIDE + F.lossW]!, i });
+    return {
+      datasets: [
+        { label: 'Overall Pareto front', data: result.overall.map(xy), showLine: true, borderColor: INK, backgroundColor: INK, borderWidth: 2.5, pointRadius: 4.5, pointStyle: 'crossRot', order: 0 },
+        ...result.plan.schemes.map((scheme, s) => {
+          const st = SCHEME_STYLES[scheme];
+          return { label: `${SCHEME_LABELS[scheme]} front`, data: result.fronts[s]!.map(xy), showLine: true, borderColor: st.color, backgroundColor: st.color, borderDash: st.dash, borderWidth: 1.75, pointRadius: 3, pointStyle: st.marker, order: 1 };
+        }),
+      ],
+    };
+  }, [result]);
+
+  const options = useMemo((): ChartOptions<'scatter'> => {
+    const has = result !== null && result.feasible > 0;
+    const x = has ? padded(result.bounds.costMin, result.bounds.costMax) : { min: 0, max: 1 };
+    const y = has ? padded(result.bounds.lossMin, result.bounds.lossMax) : { min: 0, max: 1 };
+    return {
+      animation: false, responsive: true, maintainAspectRatio: false, parsing: false, normalized: true, events: [],
+      scales: {
+        // Suggested, not fixed: Chart.js widens them to round tick values; the cloud reads the final scales.
+        x: { type: 'linear', suggestedMin: x.min, suggestedMax: x.max, ticks: { display: has }, title: { display: true, text: `Power-stage BOM cost (${currency} per unit)` } },
+        y: { type: 'linear', suggestedMin: y.min, suggestedMax: y.max, ticks: { display: has }, title: { display: true, text: 'Total loss at Vin,nom, full load (W)' } },
       },
-      ...plan.schemes.map((scheme, s) => {
-        const st = SCHEME_STYLES[scheme];
-        return {
-          label: `${SCHEME_LABELS[scheme]} front`, data: result.fronts[s]!.map(xy), showLine: true, borderColor: st.color, backgroundColor: st.color,
-          borderDash: st.dash, borderWidth: 1.5, pointRadius: 3, pointHoverRadius: 6, pointStyle: st.marker, order: 1,
-        };
-      }),
-      ...plan.schemes.map((scheme, s) => {
-        const st = SCHEME_STYLES[scheme];
-        return {
-          label: `${SCHEME_LABELS[scheme]} points`, data: result.clouds[s]!.map(xy), borderColor: alpha(st.color, 0.35), backgroundColor: alpha(st.color, 0.2),
-          pointRadius: 1.6, pointHoverRadius: 4, pointStyle: st.marker, borderWidth: 0.6, order: 2,
-        };
-      }),
-    ],
-  }), [result]);
-  const options = useMemo((): ChartOptions<'scatter'> => ({
-    animation: false, responsive: true, maintainAspectRatio: false, parsing: false, normalized: true,
-    interaction: { mode: 'nearest', intersect: false, axis: 'xy' },
-    scales: {
-      x: { type: 'linear', title: { display: true, text: `Power-stage BOM cost (${currency} per unit)` } },
-      y: { type: 'linear', title: { display: true, text: 'Total loss at Vin,nom, full load (W)' } },
-    },
-    plugins: {
-      legend: { position: 'bottom', labels: { usePointStyle: true, boxWidth: 8, filter: (item) => !String(item.text).endsWith(' points') || false } },
-      tooltip: {
-        callbacks: {
-          title: (items) => {
-            const p = pointAt(plan, data, (items[0]!.raw as XY).i);
-            return `${SCHEME_LABELS[p.scheme]} · ${formatSi(p.fswHz, 'Hz')}`;
-          },
-          label: (item) => {
-            const p = pointAt(plan, data, (item.raw as XY).i);
-            return [
-              `BOM ${p.cost.toFixed(2)} ${currency} · loss ${formatSi(p.lossW, 'W')} · η ${(p.efficiency * 100).toFixed(1)} %`,
-              `duty limit ${p.dutyLimit.toFixed(3)} · Ns/Np ${p.turnsRatio.toFixed(3)}`,
-              `switch ${p.mainSwitch ?? 'auto'} · rectifier ${p.rectifier ?? 'auto'} · core ${p.core ?? 'auto'}`,
-              'Click to open this point in Compare',
-            ];
+      plugins: {
+        tooltip: { enabled: false },
+        legend: {
+          display: has, position: 'bottom',
+          labels: {
+            usePointStyle: true, boxWidth: 8,
+            generateLabels: (chart) => [
+              ...Chart.defaults.plugins.legend.labels.generateLabels(chart),
+              { text: 'Design points (dots in scheme colours, deeper where many overlap)', fillStyle: 'rgba(92, 103, 97, 0.45)', strokeStyle: 'rgba(92, 103, 97, 0.45)', lineWidth: 0, pointStyle: 'rect', hidden: false, datasetIndex: -1 },
+            ],
           },
         },
       },
+    };
+  }, [result, currency]);
+
+  const plugin = useMemo((): Plugin<'scatter'> => ({
+    id: 'sweepCloud',
+    beforeUpdate: () => { drawRef.current.start = performance.now(); },
+    beforeDatasetsDraw: (chart) => {
+      const r = resultRef.current;
+      if (!r || r.feasible === 0) return;
+      const { left, top, width, height } = chart.chartArea;
+      const dpr = chart.currentDevicePixelRatio;
+      const xs = chart.scales.x!, ys = chart.scales.y!;
+      const key = [left, top, width, height, dpr, xs.min, xs.max, ys.min, ys.max].join();
+      if (layerRef.current?.key !== key || layerRef.current.result !== r) {
+        const t0 = performance.now();
+        const map = {
+          costAt0: xs.getValueForPixel(left)!, xPerCost: ((xs.getPixelForValue(xs.max) - xs.getPixelForValue(xs.min)) / (xs.max - xs.min)) * dpr,
+          lossAt0: ys.getValueForPixel(top)!, yPerLoss: ((ys.getPixelForValue(ys.max) - ys.getPixelForValue(ys.min)) / (ys.max - ys.min)) * dpr,
+        };
+        const colours = r.plan.schemes.map((s) => rgbOf(SCHEME_STYLES[s].color));
+        const layer = drawCloud(r.data, r.count, colours, map, width * dpr, height * dpr, Math.max(2, Math.round(2 * dpr)));
+        const canvas = layerRef.current?.canvas ?? document.createElement('canvas');
+        canvas.width = layer.width; canvas.height = layer.height;
+        canvas.getContext('2d')!.putImageData(new ImageData(layer.pixels as Uint8ClampedArray<ArrayBuffer>, layer.width, layer.height), 0, 0);
+        layerRef.current = { key, result: r, layer, canvas };
+        boxRef.current?.setAttribute('data-cloud-points', String(layer.drawn));
+        drawRef.current.rasterMs = performance.now() - t0;
+      }
+      chart.ctx.drawImage(layerRef.current.canvas, left, top, width, height);
     },
-    onClick: (_event, elements) => {
-      const hit = elements[0];
-      if (!hit) return;
-      const raw = chartRef.current?.data.datasets[hit.datasetIndex]?.data[hit.index];
-      if (raw) onPick(pointAt(plan, data, raw.i));
-    },
-  }), [result, currency]);
+    afterRender: () => { drawRef.current.chartMs = performance.now() - drawRef.current.start; },
+  }), []);
+
   useEffect(() => {
-    const id = requestAnimationFrame(() => onDrawn());
-    return () => cancelAnimationFrame(id);
+    setHover(null);
+    setCursor(null);
+    if (!result) return;
+    const committedAt = now();
+    // After the frame with the new map is painted: a task queued from the next animation frame runs after it.
+    let cancelled = false;
+    const id = requestAnimationFrame(() => {
+      const channel = new MessageChannel();
+      channel.port1.onmessage = () => { if (!cancelled) onDrawn({ committedAt, rasterMs: drawRef.current.rasterMs, chartMs: drawRef.current.chartMs, paintedAt: now() }); };
+      channel.port2.postMessage(null);
+    });
+    return () => { cancelled = true; cancelAnimationFrame(id); };
   }, [result]);
+
+  /** Plan index under a pointer position (CSS px in the canvas): front points first, then the cloud. */
+  const pointNear = (x: number, y: number): number => {
+    const chart = chartRef.current, layer = layerRef.current;
+    if (!chart || !result || !layer || layer.result !== result) return -1;
+    let best = -1, bestD = 64;
+    for (const front of fronts) {
+      for (const i of front) {
+        const d = (chart.scales.x!.getPixelForValue(result.data[i * STRIDE + F.cost]!) - x) ** 2 + (chart.scales.y!.getPixelForValue(result.data[i * STRIDE + F.lossW]!) - y) ** 2;
+        if (d < bestD) { bestD = d; best = i; }
+      }
+    }
+    if (best >= 0) return best;
+    const dpr = chart.currentDevicePixelRatio;
+    return nearestInCloud(layer.layer, (x - chart.chartArea.left) * dpr, (y - chart.chartArea.top) * dpr, 6 * dpr);
+  };
+  const placeOf = (i: number): { x: number; y: number } => {
+    const chart = chartRef.current!;
+    return { x: chart.scales.x!.getPixelForValue(result!.data[i * STRIDE + F.cost]!), y: chart.scales.y!.getPixelForValue(result!.data[i * STRIDE + F.lossW]!) };
+  };
+  const onMove = (e: MouseEvent<HTMLDivElement>): void => {
+    const rect = e.currentTarget.getBoundingClientRect();
+    const i = pointNear(e.clientX - rect.left, e.clientY - rect.top);
+    setHover(i >= 0 ? { i, ...placeOf(i) } : null);
+  };
+  const onClick = (): void => { if (hover && result) onPick(pointAt(result.plan, result.data, hover.i)); };
+  const onKey = (e: KeyboardEvent<HTMLDivElement>): void => {
+    if (!result || result.overall.length === 0) return;
+    const c = cursor ?? { front: 0, pos: 0 };
+    let next = c;
+    if (e.key === 'ArrowRight') next = { ...c, pos: Math.min(c.pos + 1, fronts[c.front]!.length - 1) };
+    else if (e.key === 'ArrowLeft') next = { ...c, pos: Math.max(c.pos - 1, 0) };
+    else if (e.key === 'ArrowDown' || e.key === 'ArrowUp') {
+      const step = e.key === 'ArrowDown' ? 1 : -1;
+      let f = c.front;
+      do f = (f + step + fronts.length) % fronts.length; while (fronts[f]!.length === 0);
+      next = { front: f, pos: Math.min(c.pos, fronts[f]!.length - 1) };
+    } else if (e.key === 'Enter' || e.key === ' ') {
+      onPick(pointAt(result.plan, result.data, fronts[c.front]![c.pos]!));
+    } else if (e.key === 'Escape') { setCursor(null); setHover(null); return; } else return;
+    e.preventDefault();
+    setCursor(next);
+    const i = fronts[next.front]![next.pos]!;
+    setHover({ i, ...placeOf(i) });
+  };
+
+  const p = hover && result ? pointAt(result.plan, result.data, hover.i) : null;
+  const onFront = p && cursor ? (cursor.front === 0 ? 'overall front' : `${SCHEME_LABELS[result!.plan.schemes[cursor.front - 1]!]} front`) : null;
   return (
-    <div className="h-[30rem]" data-sweep-chart>
-      <Scatter ref={chartRef} data={chartData} options={options} aria-label="BOM cost against total loss for every feasible design point, with Pareto fronts" role="img" />
+    <div className="space-y-1">
+      <div
+        ref={boxRef} className="relative h-[30rem] rounded outline-offset-2 focus-visible:outline-2 focus-visible:outline-accent" data-sweep-chart
+        tabIndex={result && result.overall.length > 0 ? 0 : -1} onMouseMove={onMove} onMouseLeave={() => { if (!cursor) setHover(null); }} onClick={onClick} onKeyDown={onKey}
+        onFocus={() => { if (!cursor && result && result.overall.length > 0) { setCursor({ front: 0, pos: 0 }); setHover({ i: result.overall[0]!, ...placeOf(result.overall[0]!) }); } }}
+        onBlur={() => { setCursor(null); setHover(null); }}
+        role="img" aria-label="BOM cost against total loss for every feasible design point, with each scheme's Pareto front and the overall front"
+        style={{ cursor: hover ? 'pointer' : 'default' }}
+      >
+        <Scatter ref={chartRef} data={chartData} options={options} plugins={[plugin]} updateMode="none" />
+        {notice && <div className="pointer-events-none absolute inset-0 flex items-center justify-center p-8"><Notice kind={notice} /></div>}
+        {hover && p && (
+          <>
+            <span className="pointer-events-none absolute size-3.5 -translate-x-1/2 -translate-y-1/2 rounded-full border-2 border-ink bg-white/40" style={{ left: hover.x, top: hover.y }} aria-hidden="true" data-sweep-ring />
+            <div
+              className="pointer-events-none absolute z-10 w-max max-w-[22rem] rounded bg-ink/95 px-2.5 py-2 text-xs leading-snug text-white shadow"
+              style={{ left: hover.x, top: hover.y, transform: `translate(${hover.x > (chartRef.current?.width ?? 1000) * 0.6 ? 'calc(-100% - 12px)' : '12px'}, ${hover.y > (chartRef.current?.height ?? 480) * 0.55 ? 'calc(-100% - 8px)' : '8px'})` }}
+              data-sweep-tooltip
+            >
+              <p className="font-semibold"><span className="mr-1 inline-block size-2 rounded-full" style={{ background: SCHEME_STYLES[p.scheme].color }} />{SCHEME_LABELS[p.scheme]} · {formatSi(p.fswHz, 'Hz')}{onFront && <span className="font-normal text-white/80"> · {onFront}</span>}</p>
+              <p className="tabular-nums">BOM {p.cost.toFixed(2)} {currency} · loss {formatSi(p.lossW, 'W')} · η {(p.efficiency * 100).toFixed(1)} %</p>
+              <p className="tabular-nums">duty limit {p.dutyLimit.toFixed(3)} · Ns/Np {p.turnsRatio.toFixed(3)}</p>
+              <p>switch {p.mainSwitch ?? 'auto'} · rectifier {p.rectifier ?? 'auto'} · core {p.core ?? 'auto'}</p>
+              <p className="mt-0.5 text-white/80">{cursor ? 'Enter' : 'Click'} to open this point in Compare</p>
+            </div>
+          </>
+        )}
+      </div>
+      <p className="sr-only" aria-live="polite">{p ? `${SCHEME_LABELS[p.scheme]}, ${formatSi(p.fswHz, 'Hz')}, BOM ${p.cost.toFixed(2)} ${currency}, loss ${formatSi(p.lossW, 'W')}${onFront ? `, on the ${onFront}` : ''}` : ''}</p>
     </div>
   );
 }
+
+/** Memoised: progress updates of the page leave the map alone. */
+export default memo(SweepChart);

@@ -1,16 +1,16 @@
-import { lazy, Suspense, useEffect, useMemo, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { SCHEME_IDS, SCHEME_LABELS, type NormalisedSpec, type PartsLibrary, type SchemeId } from '../../engine';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { formatSi } from '../../lib/si';
 import { handoffHref } from './handoff';
 import { DEFAULT_SETTINGS, planSweep, settingsProblems, type SweepSettings } from './plan';
 import { overrideOf, pointAt, type DesignPoint } from './points';
-import type { SweepMessage, SweepRequest } from './protocol';
+import { SweepPool, type SweepResult } from './pool';
+import type { DrawTimes } from './SweepChart';
 
-// Chart.js loads while the user sets up the sweep, so the first map does not wait for it.
+// Chart.js loads and the empty map is built while the user sets up, so the first result only updates it.
 const loadChart = (): Promise<typeof import('./SweepChart')> => import('./SweepChart');
 const SweepChart = lazy(loadChart);
-type Done = Extract<SweepMessage, { type: 'done' }>;
 
 interface Props {
   specId: string;
@@ -20,54 +20,94 @@ interface Props {
 
 type Status = { kind: 'idle' } | { kind: 'running'; done: number; total: number } | { kind: 'cancelled'; done: number; total: number } | { kind: 'error'; message: string } | { kind: 'done' };
 
-/** Figures of the last run (also exposed to the browser test). */
-export interface SweepTiming { points: number; evaluateMs: number; workerMs: number; totalMs: number }
+/** Figures of the last run, milliseconds from the Run click (also exposed to the browser test). */
+export interface SweepTiming { points: number; workers: number; evaluateMs: number; workerMs: number; totalMs: number }
 
-/** The Sweep island: settings, a worker run with progress and cancel, the cost-versus-loss map and the overall front as a table. */
+/** Where the last run's time went, milliseconds (exposed to the browser test as `__sweepBreakdown`). */
+export interface SweepBreakdown {
+  workers: number;
+  /** Each worker's start-up warm-up when the page loaded (not part of a run). */
+  warmMs: number[];
+  /** Per worker: Run click → job received, evaluation, its fronts and extent, hand-over to the page. */
+  dispatchMs: number[];
+  evaluateMs: number[];
+  frontsMs: number[];
+  transferMs: number[];
+  /** Last part in → numbers in plan order and fronts joined. */
+  mergeMs: number;
+  /** Joined → React committed, including the chart's update and draw. */
+  renderMs: number;
+  /** Of which: the chart's update and draw, and painting the cloud bitmap. */
+  chartMs: number;
+  rasterMs: number;
+  /** Committed → frame painted. */
+  paintMs: number;
+  totalMs: number;
+}
+
+const now = (): number => performance.timeOrigin + performance.now();
+
+function breakdownOf(r: SweepResult, d: DrawTimes, warmMs: number[]): SweepBreakdown {
+  const { startedAt, parts, mergedAt } = r.times;
+  const lastIn = Math.max(...parts.map((p) => p.arrivedAt));
+  return {
+    workers: parts.length, warmMs,
+    dispatchMs: parts.map((p) => p.receivedAt - startedAt), evaluateMs: parts.map((p) => p.evaluatedAt - p.receivedAt),
+    frontsMs: parts.map((p) => p.summarisedAt - p.evaluatedAt), transferMs: parts.map((p) => p.arrivedAt - p.summarisedAt),
+    mergeMs: mergedAt - lastIn, renderMs: d.committedAt - mergedAt, chartMs: d.chartMs, rasterMs: d.rasterMs,
+    paintMs: d.paintedAt - d.committedAt, totalMs: d.paintedAt - startedAt,
+  };
+}
+
+/** The Sweep island: settings, a run on warm workers with progress and cancel, the cost-versus-loss map and the overall front as a table. */
 export default function SweepScreen({ specId, spec, library }: Props) {
   const [settings, setSettings] = useState<SweepSettings>({ ...DEFAULT_SETTINGS, schemes: [...spec.schemes] });
   const [status, setStatus] = useState<Status>({ kind: 'idle' });
-  const [result, setResult] = useState<Done | null>(null);
+  const [result, setResult] = useState<SweepResult | null>(null);
   const [timing, setTiming] = useState<SweepTiming | null>(null);
-  const worker = useRef<Worker | null>(null);
-  const started = useRef(0);
+  // The front table renders after the map, in React's background pass, so it never lengthens the map's frame.
+  const tableResult = useDeferredValue(result);
+  const pool = useRef<SweepPool | null>(null);
   const problems = settingsProblems(settings);
-  const estimate = useMemo(() => (problems.length === 0 ? planSweep(spec, library, settings).total : 0), [settings]);
+  const plan = useMemo(() => (problems.length === 0 ? planSweep(spec, library, settings) : null), [settings]);
+  const estimate = plan?.total ?? 0;
   useEffect(() => {
+    pool.current = new SweepPool(spec, library);
     void loadChart();
-    return () => worker.current?.terminate();
+    return () => pool.current?.dispose();
   }, []);
 
   const run = (): void => {
-    if (problems.length > 0) return;
-    worker.current?.terminate();
-    const w = new Worker(new URL('./sweep.worker.ts', import.meta.url), { type: 'module' });
-    worker.current = w;
-    started.current = performance.now();
-    setStatus({ kind: 'running', done: 0, total: estimate });
-    w.onmessage = (event: MessageEvent<SweepMessage>) => {
-      const m = event.data;
-      if (m.type === 'planned') setStatus({ kind: 'running', done: 0, total: m.total });
-      else if (m.type === 'progress') setStatus({ kind: 'running', done: m.done, total: m.total });
-      else if (m.type === 'error') { setStatus({ kind: 'error', message: m.message }); w.terminate(); }
-      else { setResult(m); setStatus({ kind: 'done' }); w.terminate(); worker.current = null; }
-    };
-    w.onerror = (event) => setStatus({ kind: 'error', message: event.message || 'The sweep worker stopped unexpectedly.' });
-    const request: SweepRequest = { spec, library, settings };
-    w.postMessage(request);
+    if (!plan || !pool.current) return;
+    const startedAt = now();
+    setStatus({ kind: 'running', done: 0, total: plan.total });
+    setTiming(null);
+    pool.current.run(plan, startedAt, {
+      progress: (done, total) => setStatus({ kind: 'running', done, total }),
+      done: (r) => { setResult(r); setStatus({ kind: 'done' }); },
+      error: (message) => setStatus({ kind: 'error', message }),
+    });
   };
   const cancel = (): void => {
-    worker.current?.terminate();
-    worker.current = null;
+    pool.current?.cancel();
     setStatus((s) => (s.kind === 'running' ? { kind: 'cancelled', done: s.done, total: s.total } : s));
   };
-  const drawn = (): void => {
-    if (!result) return;
-    const t: SweepTiming = { points: result.count, evaluateMs: result.evaluateMs, workerMs: result.workerMs, totalMs: performance.now() - started.current };
+  // Stable callbacks, so the memoised map does not re-render on progress updates.
+  const resultRef = useRef(result);
+  resultRef.current = result;
+  const drawn = useCallback((d: DrawTimes): void => {
+    const r = resultRef.current;
+    if (!r) return;
+    const b = breakdownOf(r, d, pool.current?.warmMs ?? []);
+    const { startedAt, parts } = r.times;
+    const t: SweepTiming = {
+      points: r.count, workers: parts.length, evaluateMs: Math.max(...parts.map((p) => p.evaluatedAt)) - startedAt,
+      workerMs: Math.max(...parts.map((p) => p.summarisedAt)) - startedAt, totalMs: b.totalMs,
+    };
     setTiming(t);
-    (window as unknown as { __sweepTiming?: SweepTiming }).__sweepTiming = t;
-  };
-  const pick = (p: DesignPoint): void => window.location.assign(handoffHref(specId, p.scheme, overrideOf(p), p.fswHz === spec.fswHz ? null : p.fswHz));
+    Object.assign(window, { __sweepTiming: t, __sweepBreakdown: b });
+  }, []);
+  const pick = useCallback((p: DesignPoint): void => window.location.assign(handoffHref(specId, p.scheme, overrideOf(p), p.fswHz === spec.fswHz ? null : p.fswHz)), [specId, spec.fswHz]);
   const set = <K extends keyof SweepSettings>(key: K, value: SweepSettings[K]): void => setSettings((s) => ({ ...s, [key]: value }));
   const toggleScheme = (id: SchemeId): void => set('schemes', settings.schemes.includes(id) ? settings.schemes.filter((s) => s !== id) : SCHEME_IDS.filter((s) => s === id || settings.schemes.includes(s)));
   const running = status.kind === 'running';
@@ -122,34 +162,27 @@ export default function SweepScreen({ specId, spec, library }: Props) {
         </div>
       </form>
 
-      {!result && status.kind !== 'running' && (
-        <p className="card p-6 text-sm text-muted" data-sweep-empty>Choose what to vary and run the sweep: every design point is evaluated in the browser on the engine's lean path, and the cost-versus-loss map appears here.</p>
-      )}
-      {result && (
-        <section className="card space-y-3 p-4" aria-labelledby="sweep-map-title" data-sweep-result data-points={result.count}>
-          <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <h2 id="sweep-map-title" className="font-semibold">Cost against loss</h2>
+      <section className="card space-y-3 p-4" aria-labelledby="sweep-map-title" data-sweep-result data-points={result?.count ?? 0}>
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 id="sweep-map-title" className="font-semibold">Cost against loss</h2>
+          {result && (
             <p className="text-sm text-muted" data-sweep-figures>
               {result.count.toLocaleString('en')} points, {result.feasible.toLocaleString('en')} feasible
-              {timing && <> · evaluated in {timing.evaluateMs.toFixed(0)} ms, drawn {timing.totalMs.toFixed(0)} ms after Run ({Math.round(result.count / (timing.evaluateMs / 1000)).toLocaleString('en')} points/s)</>}
+              {timing && <> · evaluated in {timing.evaluateMs.toFixed(0)} ms on {timing.workers} {timing.workers === 1 ? 'worker' : 'workers'} ({Math.round(result.count / (timing.evaluateMs / 1000)).toLocaleString('en')} points/s), drawn {timing.totalMs.toFixed(0)} ms after Run</>}
             </p>
-          </div>
-          {result.feasible === 0 ? (
-            <p className="text-sm text-warn" data-no-feasible>No design point of this sweep is feasible. Widen the frequency range, allow more duty-limit steps, or vary the parts.</p>
-          ) : (
-            <Suspense fallback={<p className="text-sm text-muted">Drawing the map…</p>}>
-              <SweepChart result={result} currency={currency} onPick={pick} onDrawn={drawn} />
-            </Suspense>
           )}
-          <p className="text-xs text-muted">Each marker is one design point (a thinned sample where points overlap); lines are each scheme's Pareto front, the dark line with crosses the overall front. Hover for the design point; click it to open Compare with it applied. Losses at nominal input and full load; cost at the set's annual volume.</p>
-          {result.overall.length > 0 && <FrontTable result={result} specId={specId} fswHz={spec.fswHz} currency={currency} />}
-        </section>
-      )}
+        </div>
+        <Suspense fallback={<p className="flex h-[30rem] items-center justify-center text-sm text-muted">Loading the chart…</p>}>
+          <SweepChart result={result} currency={currency} onPick={pick} onDrawn={drawn} notice={!result ? (status.kind === 'running' ? 'running' : 'empty') : result.feasible === 0 ? 'infeasible' : null} />
+        </Suspense>
+        <p className="text-xs text-muted">Each dot is one feasible design point in its scheme's colour, all of them drawn (the colour deepens where many overlap); lines are each scheme's Pareto front, the dark line with crosses the overall front. Hover a point for its design; click it to open Compare with it applied. From the keyboard, focus the map: ← → step along a front, ↑ ↓ change front, Enter opens the point. Losses at nominal input and full load; cost at the set's annual volume.</p>
+        {tableResult && tableResult.overall.length > 0 && <FrontTable result={tableResult} specId={specId} fswHz={spec.fswHz} currency={currency} />}
+      </section>
     </div>
   );
 }
 
-function FrontTable({ result, specId, fswHz, currency }: { result: Done; specId: string; fswHz: number; currency: string }) {
+function FrontTable({ result, specId, fswHz, currency }: { result: SweepResult; specId: string; fswHz: number; currency: string }) {
   return (
     <div className="overflow-x-auto">
       <table className="table-eng w-full text-sm" data-front-table>

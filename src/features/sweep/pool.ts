@@ -1,0 +1,134 @@
+import type { NormalisedSpec, PartsLibrary } from '../../engine';
+import { joinBounds, joinFronts, type CloudBounds } from './fronts';
+import type { SweepPlan } from './plan';
+import type { PartTimes, SweepMessage, SweepRequest } from './protocol';
+import { partRanges, STRIDE } from './run';
+
+/** A finished sweep on the main thread: every point's numbers (plan order), fronts and extent. */
+export interface SweepResult {
+  plan: SweepPlan;
+  data: Float64Array;
+  count: number;
+  feasible: number;
+  bounds: CloudBounds;
+  /** Per scheme (plan order) the Pareto front, plan indices by rising cost. */
+  fronts: number[][];
+  overall: number[];
+  times: RunTimes;
+}
+
+/** Where a run's time went (epoch ms, comparable across threads). */
+export interface RunTimes {
+  startedAt: number;
+  parts: (PartTimes & { arrivedAt: number; points: number })[];
+  mergedAt: number;
+}
+
+interface Handlers {
+  progress: (done: number, total: number) => void;
+  done: (result: SweepResult) => void;
+  error: (message: string) => void;
+}
+
+type Part = Extract<SweepMessage, { type: 'part' }>;
+const now = (): number => performance.timeOrigin + performance.now();
+
+/**
+ * The page's sweep workers, one per logical core (at most 8), started and warmed when the page loads
+ * so Run pays neither start-up nor module loading. Cancelling terminates them and starts fresh ones.
+ */
+export class SweepPool {
+  private workers: Worker[] = [];
+  private job = 0;
+  private active: { job: number; plan: SweepPlan; handlers: Handlers; parts: Part[]; done: number[]; startedAt: number } | null = null;
+  /** Milliseconds each worker spent warming up (for the figures line), in start order. */
+  readonly warmMs: number[] = [];
+
+  constructor(private readonly spec: NormalisedSpec, private readonly library: PartsLibrary, readonly size = Math.max(1, Math.min(8, navigator.hardwareConcurrency || 2))) {
+    this.start();
+  }
+
+  private start(): void {
+    this.workers = Array.from({ length: this.size }, (_, w) => {
+      const worker = new Worker(new URL('./sweep.worker.ts', import.meta.url), { type: 'module' });
+      worker.onmessage = (event: MessageEvent<SweepMessage>) => this.receive(w, event.data);
+      worker.onerror = (event) => this.fail(event.message || 'A sweep worker stopped unexpectedly.');
+      const init: SweepRequest = { type: 'init', spec: this.spec, library: this.library };
+      worker.postMessage(init);
+      return worker;
+    });
+  }
+
+  /** Starts a sweep of `plan` (any running one is cancelled first). `startedAt` is the Run click (epoch ms). */
+  run(plan: SweepPlan, startedAt: number, handlers: Handlers): void {
+    if (this.active) this.cancel();
+    const job = ++this.job;
+    const shares = partRanges(plan.total, this.workers.length).filter((r) => r.length > 0);
+    this.active = { job, plan, handlers, parts: [], done: shares.map(() => 0), startedAt };
+    shares.forEach((ranges, w) => {
+      const request: SweepRequest = { type: 'run', job, plan, ranges };
+      this.workers[w]!.postMessage(request);
+    });
+  }
+
+  /** Stops the running sweep at once; fresh workers warm up for the next one. */
+  cancel(): void {
+    this.active = null;
+    for (const w of this.workers) w.terminate();
+    this.start();
+  }
+
+  dispose(): void {
+    this.active = null;
+    for (const w of this.workers) w.terminate();
+    this.workers = [];
+  }
+
+  private fail(message: string): void {
+    const active = this.active;
+    if (!active) return;
+    this.cancel();
+    active.handlers.error(message);
+  }
+
+  private receive(w: number, m: SweepMessage): void {
+    if (m.type === 'ready') { this.warmMs.push(m.warmMs); return; }
+    const active = this.active;
+    if (!active || (m.job !== null && m.job !== active.job)) return;
+    if (m.type === 'error') { this.fail(m.message); return; }
+    if (m.type === 'progress') {
+      active.done[w] = m.done;
+      active.handlers.progress(active.done.reduce((a, b) => a + b, 0), active.plan.total);
+      return;
+    }
+    const arrivedAt = now();
+    active.done[w] = m.count;
+    active.parts.push(m);
+    (m as Part & { arrivedAt?: number }).arrivedAt = arrivedAt;
+    if (active.parts.length < active.done.length) {
+      active.handlers.progress(active.done.reduce((a, b) => a + b, 0), active.plan.total);
+      return;
+    }
+    this.active = null;
+    active.handlers.done(assemble(active.plan, active.parts as (Part & { arrivedAt: number })[], active.startedAt));
+  }
+}
+
+/** Puts the parts' numbers back in plan order and joins their fronts and extents. */
+export function assemble(plan: SweepPlan, parts: (Part & { arrivedAt: number })[], startedAt: number): SweepResult {
+  const data = new Float64Array(plan.total * STRIDE);
+  let count = 0;
+  for (const part of parts) {
+    let pos = 0;
+    for (const [a, b] of part.ranges) {
+      data.set(part.data.subarray(pos * STRIDE, (pos + b - a) * STRIDE), a * STRIDE);
+      pos += b - a;
+    }
+    count += part.count;
+  }
+  const { fronts, overall } = joinFronts(data, parts.map((p) => p.fronts), plan.schemes.length);
+  return {
+    plan, data, count, feasible: parts.reduce((n, p) => n + p.feasible, 0), bounds: joinBounds(parts), fronts, overall,
+    times: { startedAt, parts: parts.map((p) => ({ ...p.times, arrivedAt: p.arrivedAt, points: p.count })), mergedAt: now() },
+  };
+}
