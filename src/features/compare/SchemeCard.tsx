@@ -78,8 +78,9 @@ export default function SchemeCard({ result, rank, of, stale, activeClampVariant
       </div>
       {reasons.length > 0 && (
         <ul className="mx-3 mt-1 space-y-0.5 text-xs" aria-label="Reasons">
-          {reasons.map((f) => (
-            <li key={f.code + f.message} className={f.severity === 'fail' ? 'text-fail' : 'text-warn'}>
+          {/* Keyed by code and place, not message: the message holds the live figures, which should update in place. */}
+          {reasons.map((f, i) => (
+            <li key={`${f.code}-${i}`} className={f.severity === 'fail' ? 'text-fail' : 'text-warn'}>
               <span aria-hidden="true">{f.severity === 'fail' ? '✕ ' : '! '}</span>{f.message}
             </li>
           ))}

@@ -1,5 +1,5 @@
 import { useStore } from '@nanostores/react';
-import { useId } from 'react';
+import { memo, useId } from 'react';
 import { $draftFields, $draftMeta, setDraftField, setDraftMeta } from '../../stores/spec-draft';
 import { $evaluation } from '../../stores/evaluation';
 import { parseQuantity } from '../../lib/units';
@@ -19,7 +19,8 @@ const GROUPS = [
   { id: 'design', title: 'Design assumptions' },
 ] as const;
 
-function NumericInput({ field, text, error, editable }: { field: NumericField; text: string; error?: string; editable: boolean }) {
+/** One field; memoised, so an edit re-renders only the field that changed (and any whose note changed). */
+const NumericInput = memo(function NumericInput({ field, text, error, editable }: { field: NumericField; text: string; error?: string; editable: boolean }) {
   const id = useId();
   const parsed = text.trim() === '' ? null : parseQuantity(text, field.kind);
   const shown = parsed?.ok ? fieldText(field, parsed.value) : null;
@@ -42,7 +43,7 @@ function NumericInput({ field, text, error, editable }: { field: NumericField; t
       </div>
     </div>
   );
-}
+});
 
 /** The requirement-set form: unit-aware inputs, parsed values shown, errors from the shared schema. */
 export default function SpecForm({ editable, showMeta }: Props) {

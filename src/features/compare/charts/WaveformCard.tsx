@@ -5,6 +5,7 @@ import { formatAmps, formatMicroseconds, formatVolts } from './format';
 import { LineChartBox } from './LineChartBox';
 import type { LineAxes } from './options';
 import { SchemeSelector } from './SchemeSelector';
+import { useStable } from './stable';
 import { LineLegend } from './Swatch';
 import { buildWaveSeries } from './wave-series';
 
@@ -27,15 +28,20 @@ export function WaveformCard({ comparison }: { comparison: Comparison }) {
       return error instanceof Error ? error : new Error(String(error));
     }
   }, [comparison, scheme]);
+  const ok = waves instanceof Error ? null : waves;
+  // Each panel keeps its series while an edit leaves it unchanged, so its chart is not updated.
+  const stable = { drain: useStable(ok?.drain ?? null), currents: useStable(ok?.currents ?? null), secondary: useStable(ok?.secondary ?? null), inductor: useStable(ok?.inductor ?? null) };
   if (!scheme) return null;
   const result = comparison.results.find((r) => r.scheme === scheme);
   const label = result?.label ?? scheme;
-  const panel = (title: string, key: keyof typeof AXES, aria: string) =>
-    waves && !(waves instanceof Error) ? (
-      <ChartCard bare level={4} title={title} height={200} chart={<LineChartBox series={waves[key]} axes={AXES[key]} ariaLabel={`${aria}, ${label}`} />}>
-        <LineLegend entries={waves[key].legend} />
+  const panel = (title: string, key: keyof typeof AXES, aria: string) => {
+    const series = stable[key];
+    return series ? (
+      <ChartCard bare level={4} name={`waveform-${key}`} title={title} height={200} chart={<LineChartBox name={`waveform-${key}`} series={series} axes={AXES[key]} ariaLabel={`${aria}, ${label}`} />}>
+        <LineLegend entries={series.legend} />
       </ChartCard>
     ) : null;
+  };
 
   return (
     <section aria-labelledby="compare-waveforms-title" className="card flex min-w-0 flex-col gap-3 p-3 lg:col-span-2">

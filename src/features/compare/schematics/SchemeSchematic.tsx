@@ -3,7 +3,7 @@
  * The components and wires that carry the magnetizing current while the core resets are drawn in
  * the scheme's colour (thicker); everything else is neutral ink.
  */
-import type { JSX } from 'react';
+import { memo, type JSX } from 'react';
 import type { SchemeId } from '../../../engine/scheme-ids';
 import { SCHEME_LABELS } from '../../../engine/scheme-ids';
 import { SCHEME_STYLES } from '../../../lib/scheme-style';
@@ -59,7 +59,7 @@ function Drawing({ scheme, variant, ...p }: DrawingProps & { scheme: SchemeId; v
   }
 }
 
-export default function SchemeSchematic({ scheme, activeClampVariant = 'high-side', rectifier = 'diode', className }: SchemeSchematicProps): JSX.Element {
+function SchemeSchematic({ scheme, activeClampVariant = 'high-side', rectifier = 'diode', className }: SchemeSchematicProps): JSX.Element {
   const { color } = SCHEME_STYLES[scheme];
   const description = describeScheme(scheme, activeClampVariant, rectifier);
   const caption =
@@ -95,3 +95,6 @@ export default function SchemeSchematic({ scheme, activeClampVariant = 'high-sid
     </svg>
   );
 }
+
+/** Memoised: on Compare every edit re-renders the cards, but a schematic changes only with its props. */
+export default memo(SchemeSchematic);
