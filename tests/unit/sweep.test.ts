@@ -4,7 +4,7 @@ import { demoPartsLibrary, evaluateLean, parseSpecInput } from '../../src/engine
 import { decodeOverrides, encodeOverrides, handoffHref, readHandoff } from '../../src/features/sweep/handoff';
 import { DEFAULT_SETTINGS, frequencies, planSweep, settingsProblems } from '../../src/features/sweep/plan';
 import { overrideOf, pointAt } from '../../src/features/sweep/points';
-import { drawCloud, nearestInCloud, rgbOf } from '../../src/features/sweep/cloud';
+import { drawCloud, nearestInCloud, newCloud, paintCloud, rgbOf } from '../../src/features/sweep/cloud';
 import { joinBounds, joinFronts, paretoFront, summarise } from '../../src/features/sweep/fronts';
 import { assemble } from '../../src/features/sweep/pool';
 import { F, globalIndex, partRanges, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
@@ -157,6 +157,22 @@ describe('cloud bitmap and hover lookup', () => {
     for (const i of [0, 1]) { two[i * STRIDE + F.cost] = 1; two[i * STRIDE + F.lossW] = 1; two[i * STRIDE + F.feasible] = 1; }
     const l = drawCloud(two, 2, [[0, 0, 0]], map, 40, 40, 2, 0.5);
     expect(Math.abs(l.pixels[(20 * 40 + 10) * 4 + 3]! - 0.75 * 255)).toBeLessThanOrEqual(1); // within one 8-bit step
+  });
+  test('painting in slices gives the same bitmap, hover buckets and count as painting at once', () => {
+    const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 2, dutySteps: 2, varyRectifier: false });
+    const data = new Float64Array(plan.total * STRIDE);
+    const n = runSweep(spec, demoPartsLibrary, plan, data);
+    const { bounds } = summarise(data, n, plan.schemes.length);
+    const m = { costAt0: bounds.costMin, xPerCost: 199 / (bounds.costMax - bounds.costMin), lossAt0: bounds.lossMax, yPerLoss: -99 / (bounds.lossMax - bounds.lossMin) };
+    const colours = plan.schemes.map((_, k) => rgbOf(['#2364aa', '#c75a12', '#1f8a5b', '#8a3b9e', '#a07a00'][k]!));
+    const whole = drawCloud(data, n, colours, m, 200, 100);
+    const sliced = newCloud(n, 200, 100);
+    for (let from = 0; from < n; from += 37) paintCloud(sliced, data, from, Math.min(n, from + 37), colours, m);
+    expect(sliced.pixels).toEqual(whole.pixels);
+    expect(sliced.head).toEqual(whole.head);
+    expect(sliced.next).toEqual(whole.next);
+    expect(sliced.drawn).toBe(whole.drawn);
+    expect(whole.drawn).toBe(summarise(data, n, plan.schemes.length).feasible);
   });
   test('the nearest drawn point within the radius, or −1', () => {
     expect(nearestInCloud(layer, 12, 19, 6)).toBe(0);

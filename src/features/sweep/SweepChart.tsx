@@ -5,7 +5,7 @@ import { Chart } from '../../components/charts/register';
 import { SCHEME_LABELS } from '../../engine/scheme-ids';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { formatSi } from '../../lib/si';
-import { drawCloud, nearestInCloud, rgbOf, type CloudLayer } from './cloud';
+import { nearestInCloud, newCloud, paintCloud, rgbOf, type CloudLayer, type PixelMap } from './cloud';
 import type { SweepResult } from './pool';
 import { pointAt, type DesignPoint } from './points';
 import { F, STRIDE } from './run';
@@ -13,15 +13,29 @@ import { F, STRIDE } from './run';
 interface XY { x: number; y: number; i: number }
 type Sc = ChartType<'scatter', XY[]>;
 
-/** How long the map took to appear (epoch ms). */
-export interface DrawTimes { committedAt: number; rasterMs: number; chartMs: number; paintedAt: number }
+/** How long the fronts took to appear (epoch ms; chartMs is the chart's update and draw). */
+export interface DrawTimes { committedAt: number; chartMs: number; paintedAt: number }
+/** How long the cloud took: painting its slices (ms) and when the frame with it was painted (epoch ms). */
+export interface CloudTimes { rasterMs: number; slices: number; paintedAt: number }
+
+/** Points painted per task: a slice stays well under 50 ms of main-thread time. */
+const SLICE = 25_000;
+
+/** Runs `fn` in a new task (a message to ourselves is not clamped like a nested timeout). */
+function nextTask(fn: () => void): void {
+  const channel = new MessageChannel();
+  channel.port1.onmessage = () => fn();
+  channel.port2.postMessage(null);
+}
 
 interface Props {
   result: SweepResult | null;
   currency: string;
   onPick: (p: DesignPoint) => void;
-  /** Called once the chart has painted a new result. */
+  /** Called once the chart has painted a new result's axes and fronts. */
   onDrawn: (t: DrawTimes) => void;
+  /** Called once the cloud of `result` has been painted (again after a resize). */
+  onCloud: (result: SweepResult, t: CloudTimes) => void;
   /** What to say over the map when there is nothing to show: before the first run, during it, or when no point is feasible. */
   notice: 'empty' | 'running' | 'infeasible' | null;
 }
@@ -46,13 +60,16 @@ function padded(lo: number, hi: number): { min: number; max: number } {
  * per-point chart objects); Chart.js draws the axes, each scheme's Pareto front and the overall front.
  * Hover, click and the keyboard (arrows along the fronts, Enter) find points in the full result.
  */
-function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
+function SweepChart({ result, currency, onPick, onDrawn, onCloud, notice }: Props) {
   const chartRef = useRef<Sc>(null);
   const boxRef = useRef<HTMLDivElement>(null);
   const resultRef = useRef(result);
   resultRef.current = result;
   const layerRef = useRef<{ key: string; result: SweepResult; layer: CloudLayer; canvas: HTMLCanvasElement } | null>(null);
-  const drawRef = useRef({ start: 0, rasterMs: 0, chartMs: 0 });
+  const jobRef = useRef<{ key: string; result: SweepResult } | null>(null);
+  const onCloudRef = useRef(onCloud);
+  onCloudRef.current = onCloud;
+  const drawRef = useRef({ start: 0, chartMs: 0 });
   const [hover, setHover] = useState<{ i: number; x: number; y: number } | null>(null);
   const [cursor, setCursor] = useState<{ front: number; pos: number } | null>(null);
 
@@ -98,6 +115,42 @@ function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
     };
   }, [result, currency]);
 
+  /**
+   * Paints the cloud of `r` in slices of SLICE points, one task each, then shows it: the fronts' frame
+   * is never held up by the cloud, and no slice makes a long task.
+   */
+  const paintInSlices = (chart: Sc, r: SweepResult, key: string, map: PixelMap, width: number, height: number, dot: number): void => {
+    const job = { key, result: r };
+    jobRef.current = job;
+    const colours = r.plan.schemes.map((s) => rgbOf(SCHEME_STYLES[s].color));
+    let layer: CloudLayer | null = null;
+    let from = 0, rasterMs = 0, slices = 0;
+    const step = (): void => {
+      if (jobRef.current !== job || chartRef.current !== chart) return; // superseded or unmounted
+      const t0 = performance.now();
+      layer ??= newCloud(r.count, width, height);
+      const to = Math.min(r.count, from + SLICE);
+      paintCloud(layer, r.data, from, to, colours, map, dot);
+      from = to;
+      slices++;
+      if (from < r.count) {
+        rasterMs += performance.now() - t0;
+        nextTask(step);
+        return;
+      }
+      const canvas = document.createElement('canvas');
+      canvas.width = layer.width; canvas.height = layer.height;
+      canvas.getContext('2d')!.putImageData(new ImageData(layer.pixels as Uint8ClampedArray<ArrayBuffer>, layer.width, layer.height), 0, 0);
+      layerRef.current = { key, result: r, layer, canvas };
+      jobRef.current = null;
+      boxRef.current?.setAttribute('data-cloud-points', String(layer.drawn));
+      chart.draw();
+      rasterMs += performance.now() - t0;
+      requestAnimationFrame(() => nextTask(() => onCloudRef.current(r, { rasterMs, slices, paintedAt: now() })));
+    };
+    nextTask(step);
+  };
+
   const plugin = useMemo((): Plugin<'scatter'> => ({
     id: 'sweepCloud',
     beforeUpdate: () => { drawRef.current.start = performance.now(); },
@@ -108,22 +161,15 @@ function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
       const dpr = chart.currentDevicePixelRatio;
       const xs = chart.scales.x!, ys = chart.scales.y!;
       const key = [left, top, width, height, dpr, xs.min, xs.max, ys.min, ys.max].join();
-      if (layerRef.current?.key !== key || layerRef.current.result !== r) {
-        const t0 = performance.now();
-        const map = {
-          costAt0: xs.getValueForPixel(left)!, xPerCost: ((xs.getPixelForValue(xs.max) - xs.getPixelForValue(xs.min)) / (xs.max - xs.min)) * dpr,
-          lossAt0: ys.getValueForPixel(top)!, yPerLoss: ((ys.getPixelForValue(ys.max) - ys.getPixelForValue(ys.min)) / (ys.max - ys.min)) * dpr,
-        };
-        const colours = r.plan.schemes.map((s) => rgbOf(SCHEME_STYLES[s].color));
-        const layer = drawCloud(r.data, r.count, colours, map, width * dpr, height * dpr, Math.max(2, Math.round(2 * dpr)));
-        const canvas = layerRef.current?.canvas ?? document.createElement('canvas');
-        canvas.width = layer.width; canvas.height = layer.height;
-        canvas.getContext('2d')!.putImageData(new ImageData(layer.pixels as Uint8ClampedArray<ArrayBuffer>, layer.width, layer.height), 0, 0);
-        layerRef.current = { key, result: r, layer, canvas };
-        boxRef.current?.setAttribute('data-cloud-points', String(layer.drawn));
-        drawRef.current.rasterMs = performance.now() - t0;
-      }
-      chart.ctx.drawImage(layerRef.current.canvas, left, top, width, height);
+      const ready = layerRef.current;
+      // The finished picture of this result (stretched for a moment after a resize, until the new one is painted).
+      if (ready && ready.result === r) chart.ctx.drawImage(ready.canvas, left, top, width, height);
+      if ((ready && ready.result === r && ready.key === key) || (jobRef.current?.key === key && jobRef.current.result === r)) return;
+      const map: PixelMap = {
+        costAt0: xs.getValueForPixel(left)!, xPerCost: ((xs.getPixelForValue(xs.max) - xs.getPixelForValue(xs.min)) / (xs.max - xs.min)) * dpr,
+        lossAt0: ys.getValueForPixel(top)!, yPerLoss: ((ys.getPixelForValue(ys.max) - ys.getPixelForValue(ys.min)) / (ys.max - ys.min)) * dpr,
+      };
+      paintInSlices(chart as Sc, r, key, map, width * dpr, height * dpr, Math.max(2, Math.round(2 * dpr)));
     },
     afterRender: () => { drawRef.current.chartMs = performance.now() - drawRef.current.start; },
   }), []);
@@ -137,7 +183,7 @@ function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
     let cancelled = false;
     const id = requestAnimationFrame(() => {
       const channel = new MessageChannel();
-      channel.port1.onmessage = () => { if (!cancelled) onDrawn({ committedAt, rasterMs: drawRef.current.rasterMs, chartMs: drawRef.current.chartMs, paintedAt: now() }); };
+      channel.port1.onmessage = () => { if (!cancelled) onDrawn({ committedAt, chartMs: drawRef.current.chartMs, paintedAt: now() }); };
       channel.port2.postMessage(null);
     });
     return () => { cancelled = true; cancelAnimationFrame(id); };
@@ -146,7 +192,7 @@ function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
   /** Plan index under a pointer position (CSS px in the canvas): front points first, then the cloud. */
   const pointNear = (x: number, y: number): number => {
     const chart = chartRef.current, layer = layerRef.current;
-    if (!chart || !result || !layer || layer.result !== result) return -1;
+    if (!chart || !result) return -1;
     let best = -1, bestD = 64;
     for (const front of fronts) {
       for (const i of front) {
@@ -154,7 +200,7 @@ function SweepChart({ result, currency, onPick, onDrawn, notice }: Props) {
         if (d < bestD) { bestD = d; best = i; }
       }
     }
-    if (best >= 0) return best;
+    if (best >= 0 || !layer || layer.result !== result) return best;
     const dpr = chart.currentDevicePixelRatio;
     return nearestInCloud(layer.layer, (x - chart.chartArea.left) * dpr, (y - chart.chartArea.top) * dpr, 6 * dpr);
   };

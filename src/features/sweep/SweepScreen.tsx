@@ -6,7 +6,7 @@ import { handoffHref } from './handoff';
 import { DEFAULT_SETTINGS, planSweep, settingsProblems, type SweepSettings } from './plan';
 import { overrideOf, pointAt, type DesignPoint } from './points';
 import { SweepPool, type SweepResult } from './pool';
-import type { DrawTimes } from './SweepChart';
+import type { CloudTimes, DrawTimes } from './SweepChart';
 
 // Chart.js loads and the empty map is built while the user sets up, so the first result only updates it.
 const loadChart = (): Promise<typeof import('./SweepChart')> => import('./SweepChart');
@@ -21,7 +21,7 @@ interface Props {
 type Status = { kind: 'idle' } | { kind: 'running'; done: number; total: number } | { kind: 'cancelled'; done: number; total: number } | { kind: 'error'; message: string } | { kind: 'done' };
 
 /** Figures of the last run, milliseconds from the Run click (also exposed to the browser test). */
-export interface SweepTiming { points: number; workers: number; evaluateMs: number; workerMs: number; totalMs: number }
+export interface SweepTiming { points: number; workers: number; evaluateMs: number; workerMs: number; totalMs: number; cloudMs: number | null }
 
 /** Where the last run's time went, milliseconds (exposed to the browser test as `__sweepBreakdown`). */
 export interface SweepBreakdown {
@@ -35,14 +35,18 @@ export interface SweepBreakdown {
   transferMs: number[];
   /** Last part in → numbers in plan order and fronts joined. */
   mergeMs: number;
-  /** Joined → React committed, including the chart's update and draw. */
+  /** Joined → React committed, including the chart's update and draw (axes and fronts). */
   renderMs: number;
-  /** Of which: the chart's update and draw, and painting the cloud bitmap. */
+  /** Of which: the chart's update and draw. */
   chartMs: number;
-  rasterMs: number;
-  /** Committed → frame painted. */
+  /** Committed → frame with the fronts painted. */
   paintMs: number;
+  /** Run click → fronts painted (the goal's figure). */
   totalMs: number;
+  /** The cloud, painted after the fronts: main-thread time painting it, in how many tasks, and Run click → frame with it painted. */
+  rasterMs: number | null;
+  slices: number | null;
+  cloudMs: number | null;
 }
 
 const now = (): number => performance.timeOrigin + performance.now();
@@ -54,8 +58,8 @@ function breakdownOf(r: SweepResult, d: DrawTimes, warmMs: number[]): SweepBreak
     workers: parts.length, warmMs,
     dispatchMs: parts.map((p) => p.receivedAt - startedAt), evaluateMs: parts.map((p) => p.evaluatedAt - p.receivedAt),
     frontsMs: parts.map((p) => p.summarisedAt - p.evaluatedAt), transferMs: parts.map((p) => p.arrivedAt - p.summarisedAt),
-    mergeMs: mergedAt - lastIn, renderMs: d.committedAt - mergedAt, chartMs: d.chartMs, rasterMs: d.rasterMs,
-    paintMs: d.paintedAt - d.committedAt, totalMs: d.paintedAt - startedAt,
+    mergeMs: mergedAt - lastIn, renderMs: d.committedAt - mergedAt, chartMs: d.chartMs,
+    paintMs: d.paintedAt - d.committedAt, totalMs: d.paintedAt - startedAt, rasterMs: null, slices: null, cloudMs: null,
   };
 }
 
@@ -102,10 +106,19 @@ export default function SweepScreen({ specId, spec, library }: Props) {
     const { startedAt, parts } = r.times;
     const t: SweepTiming = {
       points: r.count, workers: parts.length, evaluateMs: Math.max(...parts.map((p) => p.evaluatedAt)) - startedAt,
-      workerMs: Math.max(...parts.map((p) => p.summarisedAt)) - startedAt, totalMs: b.totalMs,
+      workerMs: Math.max(...parts.map((p) => p.summarisedAt)) - startedAt, totalMs: b.totalMs, cloudMs: null,
     };
     setTiming(t);
     Object.assign(window, { __sweepTiming: t, __sweepBreakdown: b });
+  }, []);
+  const cloudDrawn = useCallback((r: SweepResult, c: CloudTimes): void => {
+    const w = window as unknown as { __sweepBreakdown?: SweepBreakdown; __sweepCloud?: SweepResult };
+    // Only the first picture of the current run counts (a resize paints it again).
+    if (r !== resultRef.current || w.__sweepCloud === r) return;
+    w.__sweepCloud = r;
+    const cloudMs = c.paintedAt - r.times.startedAt;
+    if (w.__sweepBreakdown) Object.assign(w.__sweepBreakdown, { rasterMs: c.rasterMs, slices: c.slices, cloudMs });
+    setTiming((t) => (t ? { ...t, cloudMs } : t));
   }, []);
   const pick = useCallback((p: DesignPoint): void => window.location.assign(handoffHref(specId, p.scheme, overrideOf(p), p.fswHz === spec.fswHz ? null : p.fswHz)), [specId, spec.fswHz]);
   const set = <K extends keyof SweepSettings>(key: K, value: SweepSettings[K]): void => setSettings((s) => ({ ...s, [key]: value }));
@@ -168,12 +181,12 @@ export default function SweepScreen({ specId, spec, library }: Props) {
           {result && (
             <p className="text-sm text-muted" data-sweep-figures>
               {result.count.toLocaleString('en')} points, {result.feasible.toLocaleString('en')} feasible
-              {timing && <> · evaluated in {timing.evaluateMs.toFixed(0)} ms on {timing.workers} {timing.workers === 1 ? 'worker' : 'workers'} ({Math.round(result.count / (timing.evaluateMs / 1000)).toLocaleString('en')} points/s), drawn {timing.totalMs.toFixed(0)} ms after Run</>}
+              {timing && <> · evaluated in {timing.evaluateMs.toFixed(0)} ms on {timing.workers} {timing.workers === 1 ? 'worker' : 'workers'} ({Math.round(result.count / (timing.evaluateMs / 1000)).toLocaleString('en')} points/s), fronts drawn {timing.totalMs.toFixed(0)} ms after Run{timing.cloudMs !== null && <>, every point {timing.cloudMs.toFixed(0)} ms</>}</>}
             </p>
           )}
         </div>
         <Suspense fallback={<p className="flex h-[30rem] items-center justify-center text-sm text-muted">Loading the chart…</p>}>
-          <SweepChart result={result} currency={currency} onPick={pick} onDrawn={drawn} notice={!result ? (status.kind === 'running' ? 'running' : 'empty') : result.feasible === 0 ? 'infeasible' : null} />
+          <SweepChart result={result} currency={currency} onPick={pick} onDrawn={drawn} onCloud={cloudDrawn} notice={!result ? (status.kind === 'running' ? 'running' : 'empty') : result.feasible === 0 ? 'infeasible' : null} />
         </Suspense>
         <p className="text-xs text-muted">Each dot is one feasible design point in its scheme's colour, all of them drawn (the colour deepens where many overlap); lines are each scheme's Pareto front, the dark line with crosses the overall front. Hover a point for its design; click it to open Compare with it applied. From the keyboard, focus the map: ← → step along a front, ↑ ↓ change front, Enter opens the point. Losses at nominal input and full load; cost at the set's annual volume.</p>
         {tableResult && tableResult.overall.length > 0 && <FrontTable result={tableResult} specId={specId} fswHz={spec.fswHz} currency={currency} />}

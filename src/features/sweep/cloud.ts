@@ -27,24 +27,30 @@ export function rgbOf(hex: string): [number, number, number] {
   return [(n >> 16) & 255, (n >> 8) & 255, n & 255];
 }
 
-/**
- * Draws every feasible point as a `dot`×`dot` pixel square in its scheme's colour at opacity `alpha`,
- * composited source-over in point order (where points pile up the colour deepens), into a
- * width×height bitmap, and files each drawn point in a bucket of `cell` pixels for hover.
- * One pass over the numbers, no canvas calls: 100,000 points take a few milliseconds.
- */
-export function drawCloud(data: Float64Array, count: number, colours: [number, number, number][], map: PixelMap, width: number, height: number, dot = 2, alpha = 0.28, cell = 8): CloudLayer {
+/** An empty cloud layer of width×height pixels for `count` points, hover buckets of `cell` pixels. */
+export function newCloud(count: number, width: number, height: number, cell = 8): CloudLayer {
   const w = Math.max(1, Math.floor(width)), h = Math.max(1, Math.floor(height));
-  const pixels = new Uint8ClampedArray(w * h * 4);
-  const px = new Float32Array(count).fill(Number.NaN), py = new Float32Array(count).fill(Number.NaN);
   const cols = Math.ceil(w / cell), rows = Math.ceil(h / cell);
-  const head = new Int32Array(cols * rows).fill(-1), next = new Int32Array(count).fill(-1);
+  return {
+    width: w, height: h, drawn: 0, pixels: new Uint8ClampedArray(w * h * 4),
+    px: new Float32Array(count).fill(Number.NaN), py: new Float32Array(count).fill(Number.NaN),
+    cell, cols, head: new Int32Array(cols * rows).fill(-1), next: new Int32Array(count).fill(-1),
+  };
+}
+
+/**
+ * Paints points [from, to): each feasible one a `dot`×`dot` pixel square in its scheme's colour at opacity
+ * `alpha`, composited source-over in point order (where points pile up the colour deepens), and files it
+ * in its hover bucket. No canvas calls; painting in slices gives the same bitmap as painting at once.
+ */
+export function paintCloud(layer: CloudLayer, data: Float64Array, from: number, to: number, colours: [number, number, number][], map: PixelMap, dot = 2, alpha = 0.28): void {
+  const { width: w, height: h, pixels, px, py, cell, cols, head, next } = layer;
   const keep = 1 - alpha, offset = Math.floor(dot / 2), a255 = alpha * 255;
   const rgb = new Float32Array(colours.length * 3);
   colours.forEach(([r, g, b], s) => { rgb[s * 3] = r; rgb[s * 3 + 1] = g; rgb[s * 3 + 2] = b; });
   const { costAt0, xPerCost, lossAt0, yPerLoss } = map;
   let drawn = 0;
-  for (let i = 0; i < count; i++) {
+  for (let i = from; i < to; i++) {
     const o = i * STRIDE;
     if (data[o + F.feasible] !== 1) continue;
     const x = (data[o + F.cost]! - costAt0) * xPerCost, y = (data[o + F.lossW]! - lossAt0) * yPerLoss;
@@ -65,7 +71,14 @@ export function drawCloud(data: Float64Array, count: number, colours: [number, n
       }
     }
   }
-  return { width: w, height: h, drawn, pixels, px, py, cell, cols, head, next };
+  layer.drawn += drawn;
+}
+
+/** The whole cloud in one go (see `paintCloud`). */
+export function drawCloud(data: Float64Array, count: number, colours: [number, number, number][], map: PixelMap, width: number, height: number, dot = 2, alpha = 0.28, cell = 8): CloudLayer {
+  const layer = newCloud(count, width, height, cell);
+  paintCloud(layer, data, 0, count, colours, map, dot, alpha);
+  return layer;
 }
 
 /** The drawn point nearest to (x, y) within `radius` pixels, or −1. */
