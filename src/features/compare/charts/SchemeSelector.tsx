@@ -1,4 +1,4 @@
-import { useRef, type KeyboardEvent } from 'react';
+import { memo, useRef, type KeyboardEvent } from 'react';
 import type { SchemeId } from '../../../engine/index';
 import { SCHEME_STYLES } from '../../../lib/scheme-style';
 import { Swatch } from './Swatch';
@@ -14,7 +14,7 @@ interface Props {
  * Segmented scheme picker with radio-group semantics: Tab reaches the chosen scheme, arrow keys
  * (and Home/End) move and choose, as in any radio group.
  */
-export function SchemeSelector({ options, value, onChange, label }: Props) {
+export const SchemeSelector = memo(function SchemeSelector({ options, value, onChange, label }: Props) {
   const buttons = useRef<(HTMLButtonElement | null)[]>([]);
   const current = Math.max(0, options.findIndex((o) => o.scheme === value));
 
@@ -64,4 +64,4 @@ export function SchemeSelector({ options, value, onChange, label }: Props) {
       })}
     </div>
   );
-}
+});

@@ -1,3 +1,5 @@
+import { memo } from 'react';
+import { sameData } from './stable';
 import type { LegendEntry } from './types';
 
 /** Marker shape in SVG, matching Chart.js point styles of the same name. */
@@ -33,8 +35,11 @@ export function Swatch({ color, dash, marker, thin = false, width = 30 }: Pick<L
   );
 }
 
-/** Legend drawn in HTML above a line chart: swatch, name and an optional figure per entry. */
-export function LineLegend({ entries, label = 'Legend' }: { entries: LegendEntry[]; label?: string }) {
+/**
+ * Legend drawn in HTML above a line chart: swatch, name and an optional figure per entry.
+ * Memoised on the entries' content: most edits leave a legend as it was.
+ */
+export const LineLegend = memo(function LineLegend({ entries, label = 'Legend' }: { entries: LegendEntry[]; label?: string }) {
   return (
     <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs" aria-label={label}>
       {entries.map((e) => (
@@ -46,4 +51,4 @@ export function LineLegend({ entries, label = 'Legend' }: { entries: LegendEntry
       ))}
     </ul>
   );
-}
+}, (prev, next) => prev.label === next.label && sameData(prev.entries, next.entries));

@@ -16,7 +16,8 @@ const AXES = { drain: volts('Switch voltage (V)'), currents: amps('Primary curre
 
 /** Idealised waveforms of one scheme at a time (two switching periods), with a scheme picker. */
 export function WaveformCard({ comparison }: { comparison: Comparison }) {
-  const options = useMemo(() => comparison.results.map((r) => ({ scheme: r.scheme, label: r.label })), [comparison]);
+  // Kept while the schemes and their names stay the same, so the memoised picker is not re-rendered.
+  const options = useStable(useMemo(() => comparison.results.map((r) => ({ scheme: r.scheme, label: r.label })), [comparison]));
   const [picked, setPicked] = useState<SchemeId | null>(null);
   // Keep the user's pick while it is still evaluated; otherwise show the best-ranked scheme.
   const scheme = options.some((o) => o.scheme === picked) ? picked! : (comparison.ranking.find((id) => options.some((o) => o.scheme === id)) ?? options[0]?.scheme);
