@@ -49,8 +49,8 @@ export const onRequest = defineMiddleware(async (context, next) => {
     }
     const token = context.cookies.get(SESSION_COOKIE)?.value;
     if (token) {
-      const { auth } = await getApp();
-      const result = await validateToken(auth, token);
+      const { auth, sessions } = await getApp();
+      const result = await validateToken(auth, token, sessions);
       if (result.user) {
         context.locals.user = result.user;
         context.locals.sessionId = sessionIdFromToken(token);

@@ -12,10 +12,12 @@ export const PATCH: APIRoute = async ({ locals, request, params }) => {
   if (user instanceof Response) return user;
   const body = await readJson(request, userPatchSchema);
   if (!body.ok) return body.response;
-  const { db } = await getApp();
+  const { db, sessions } = await getApp();
   try {
     const updated = await updateUser(db, params.id ?? '', body.data, user.id);
     if (!updated) return problem(404, 'No member with this id.');
+    sessions.forgetUser(updated.id); // the new role (or the end of the sessions) applies to the next request
+
     return json(toUserJson(updated));
   } catch (error) {
     if (error instanceof LastAdminError) return problem(409, 'The team needs at least one active admin; make someone else admin first.');
