@@ -15,7 +15,7 @@ export type SignInOutcome =
  * any session the browser brought along and starts a fresh one (no session fixation).
  */
 export async function signIn(context: APIContext, input: SignInInput): Promise<SignInOutcome> {
-  const { db, auth, throttle } = await getApp();
+  const { db, auth, throttle, sessions } = await getApp();
   const accountKey = normaliseEmail(input.email);
   const addressKey = context.clientAddress;
   const waitMs = Math.max(throttle.account.retryAfterMs(accountKey), throttle.address.retryAfterMs(addressKey));
@@ -32,7 +32,8 @@ export async function signIn(context: APIContext, input: SignInInput): Promise<S
   }
   throttle.account.reset(accountKey);
   if (context.locals.sessionId) await auth.invalidateSession(context.locals.sessionId);
-  const { token } = await startSession(auth, user.id);
+  const signedIn = { id: user.id, email: user.email, displayName: user.displayName, role: user.role, active: user.active };
+  const { token } = await startSession(auth, user.id, { cache: sessions, user: signedIn });
   const cookie = auth.createSessionCookie(token);
   context.cookies.set(cookie.name, cookie.value, cookie.attributes);
   await recordAudit(db, { actorId: user.id, action: 'user.signed-in', entityType: 'user', entityId: user.id, details: { address: addressKey } });
