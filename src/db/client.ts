@@ -25,6 +25,18 @@ export interface Database {
 /** PGlite's smallest accepted initial WebAssembly memory (2048 pages of 64 KiB). */
 const PGLITE_INITIAL_MEMORY_BYTES = 128 * 1024 * 1024;
 
+/** Handles whose only writer is this process (an embedded PGlite folder is opened by one process). */
+const singleWriter = new WeakSet<object>();
+
+/**
+ * True for a database only this process writes (PGlite): what it wrote last is what is stored,
+ * so a value it remembers after its own writes cannot be stale. False for a PostgreSQL server,
+ * which other processes may share.
+ */
+export function hasSingleWriter(db: Db): boolean {
+  return singleWriter.has(db);
+}
+
 const defaultMigrationsDir = (): string => path.resolve(process.cwd(), 'drizzle');
 
 /**
@@ -61,5 +73,6 @@ export async function openDatabase(options: DatabaseOptions): Promise<Database> 
   }
   const db = drizzle(client, { schema });
   await migrate(db, { migrationsFolder });
+  singleWriter.add(db);
   return { db: db as unknown as Db, kind: 'pglite', close: () => client.close() };
 }

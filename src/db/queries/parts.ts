@@ -1,5 +1,5 @@
 import { desc, eq, max } from 'drizzle-orm';
-import type { Db } from '../client';
+import { hasSingleWriter, type Db } from '../client';
 import { newId } from '../ids';
 import { partsLibraryVersions, uploads, users } from '../schema';
 import { recordAudit } from './audit';
@@ -11,6 +11,27 @@ type Writer = Db | Tx;
 export async function latestLibraryVersion(db: Writer): Promise<number | null> {
   const rows = await db.select({ version: max(partsLibraryVersions.version) }).from(partsLibraryVersions);
   return rows[0]?.version ?? null;
+}
+
+/** Newest version seen per single-writer database (versions only ever grow). */
+const knownLatest = new WeakMap<Db, number>();
+
+function noteLatest(db: Db, version: number): void {
+  if (version >= 1 && hasSingleWriter(db)) knownLatest.set(db, Math.max(knownLatest.get(db) ?? 0, version));
+}
+
+/**
+ * The newest library version for reading (every evaluation asks). On the embedded database this
+ * process is the only writer and `writeLibraryVersion` notes each new version, so after the first
+ * read no query is needed; on PostgreSQL, which several processes may share, it always asks.
+ * Inside a transaction use `latestLibraryVersion(tx)`.
+ */
+export async function currentLibraryVersion(db: Db): Promise<number | null> {
+  const known = knownLatest.get(db);
+  if (known !== undefined) return known;
+  const version = await latestLibraryVersion(db);
+  if (version !== null) noteLatest(db, version);
+  return version;
 }
 
 export interface LibraryVersionRow {
@@ -97,7 +118,7 @@ export type LibraryWriteOutcome = { kind: 'written'; version: number; uploadId: 
  * transaction. The primary key on `version` keeps two concurrent writers from both winning.
  */
 export async function writeLibraryVersion(db: Db, input: NewLibraryVersion): Promise<LibraryWriteOutcome> {
-  return db.transaction(async (tx): Promise<LibraryWriteOutcome> => {
+  const outcome = await db.transaction(async (tx): Promise<LibraryWriteOutcome> => {
     const current = (await latestLibraryVersion(tx)) ?? 0;
     if (current !== input.baseVersion) return { kind: 'stale', currentVersion: current };
     const version = current + 1;
@@ -113,4 +134,7 @@ export async function writeLibraryVersion(db: Db, input: NewLibraryVersion): Pro
     });
     return { kind: 'written', version, uploadId };
   });
+  // Noted after the commit, so a reader never sees a version that could still roll back.
+  noteLatest(db, outcome.kind === 'written' ? outcome.version : outcome.currentVersion);
+  return outcome;
 }
