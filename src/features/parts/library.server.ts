@@ -1,5 +1,5 @@
 import type { Db } from '../../db/client';
-import { getLibraryVersion, latestLibraryVersion, seedLibraryIfEmpty } from '../../db/queries/parts';
+import { currentLibraryVersion, getLibraryVersion, seedLibraryIfEmpty } from '../../db/queries/parts';
 import type { PartsLibrary } from '../../engine/parts/types';
 import { parseStoredLibrary } from '../../schemas/parts';
 import { SEED_SUMMARY, seedLibraryJson } from './seed-library';
@@ -15,14 +15,15 @@ const cache = new WeakMap<Db, CurrentLibrary>();
 /**
  * The library every server evaluation uses: the newest stored version. An empty table (a
  * production workspace on first use) is seeded with the built-in demo parts, because the engine
- * always needs a library. The parsed version is cached; one cheap max(version) query per call
- * keeps several server processes on one PostgreSQL database in step.
+ * always needs a library. The parsed version is cached; on PostgreSQL one cheap max(version)
+ * query per call keeps several server processes on one database in step (the embedded database
+ * has one writer, so there the version is known without asking).
  */
 export async function currentLibrary(db: Db): Promise<CurrentLibrary> {
-  let latest = await latestLibraryVersion(db);
+  let latest = await currentLibraryVersion(db);
   if (latest === null) {
     await seedLibraryIfEmpty(db, seedLibraryJson(), SEED_SUMMARY);
-    latest = (await latestLibraryVersion(db))!;
+    latest = (await currentLibraryVersion(db))!;
   }
   const hit = cache.get(db);
   if (hit && hit.version === latest) return hit;
