@@ -3,14 +3,10 @@ import type { Db } from '../client';
 import { newId } from '../ids';
 import { auditLog, ballots, candidateSnapshots, candidates, shortlists, shortlistVoters, specs, users, type Shortlist } from '../schema';
 import { recordAudit } from './audit';
-import type { BallotInput } from '../../schemas/shortlists';
+import { ShortlistRuleError } from './shortlist-rules';
 
-/** A broken workflow rule; `status` is the HTTP status the endpoint answers with. */
-export class ShortlistRuleError extends Error {
-  constructor(readonly status: 403 | 404 | 409 | 400, message: string) {
-    super(message);
-  }
-}
+export { ShortlistRuleError } from './shortlist-rules';
+export { castBallot } from './ballots';
 
 export interface SnapshotWrite {
   result: Record<string, unknown>;
@@ -165,41 +161,6 @@ export async function openVoting(db: Db, shortlistId: string, input: { deadline:
       entityId: shortlistId,
       details: { deadline: input.deadline.toISOString(), voters: input.voterIds.length },
     });
-  });
-}
-
-/**
- * Casts or changes a ballot. The ranking must name every live candidate exactly once (checked
- * here again, inside the transaction); the unique index keeps one ballot per voter.
- */
-export async function castBallot(db: Db, shortlistId: string, voterId: string, ballot: BallotInput): Promise<{ changed: boolean }> {
-  return db.transaction(async (tx) => {
-    // One statement locks the shortlist row and reads the invitation and the live candidates.
-    const rows = await tx.execute<{ status: string; deadline: string | Date | null; invited: boolean; live: string[] | null }>(sql`
-      select s.status, s.deadline,
-        exists (select 1 from shortlist_voters v where v.shortlist_id = s.id and v.user_id = ${voterId}) as invited,
-        (select coalesce(array_agg(c.id order by c.id), '{}') from candidates c where c.shortlist_id = s.id and c.removed_at is null) as live
-      from shortlists s where s.id = ${shortlistId} for update of s`);
-    const row = (rows as unknown as { rows?: unknown[] }).rows?.[0] ?? (rows as unknown as unknown[])[0];
-    if (!row) throw new ShortlistRuleError(404, 'No shortlist with this id.');
-    const { status, deadline, invited, live } = row as { status: string; deadline: string | Date | null; invited: boolean; live: string[] | null };
-    if (status !== 'voting') throw new ShortlistRuleError(409, `Voting is not open: the shortlist is ${status}.`);
-    if (deadline && new Date(deadline).getTime() <= Date.now()) throw new ShortlistRuleError(409, 'The voting deadline has passed.');
-    if (!invited) throw new ShortlistRuleError(403, 'You are not invited to vote on this shortlist.');
-    const liveSet = new Set(live ?? []);
-    if (ballot.ranking.length !== liveSet.size || !ballot.ranking.every((id) => liveSet.has(id))) {
-      throw new ShortlistRuleError(400, `The ranking must name each of the ${liveSet.size} candidates exactly once.`);
-    }
-    if (!ballot.concerns.every((c) => liveSet.has(c.candidateId))) throw new ShortlistRuleError(400, 'A concern names a candidate that is not on this shortlist.');
-    // xmax = 0 on the returned row tells an insert from an update of the existing ballot.
-    const [saved] = await tx
-      .insert(ballots)
-      .values({ id: newId(), shortlistId, voterId, ranking: ballot.ranking, concerns: ballot.concerns, comment: ballot.comment })
-      .onConflictDoUpdate({ target: [ballots.shortlistId, ballots.voterId], set: { ranking: ballot.ranking, concerns: ballot.concerns, comment: ballot.comment, updatedAt: new Date() } })
-      .returning({ inserted: sql<boolean>`(xmax = 0)` });
-    const changed = !saved?.inserted;
-    await recordAudit(tx, { actorId: voterId, action: changed ? 'ballot.changed' : 'ballot.cast', entityType: 'shortlist', entityId: shortlistId, details: { concerns: ballot.concerns.length } });
-    return { changed };
   });
 }
 
