@@ -40,7 +40,7 @@ const now = (): number => performance.timeOrigin + performance.now();
 export class SweepPool {
   private workers: Worker[] = [];
   private job = 0;
-  private active: { job: number; plan: SweepPlan; handlers: Handlers; parts: Part[]; done: number[]; startedAt: number } | null = null;
+  private active: { job: number; plan: SweepPlan; handlers: Handlers; parts: (Part & { arrivedAt: number })[]; done: number[]; startedAt: number; data: Float64Array } | null = null;
   /** Milliseconds each worker spent warming up (for the figures line), in start order. */
   readonly warmMs: number[] = [];
 
@@ -64,7 +64,8 @@ export class SweepPool {
     if (this.active) this.cancel();
     const job = ++this.job;
     const shares = partRanges(plan.total, this.workers.length).filter((r) => r.length > 0);
-    this.active = { job, plan, handlers, parts: [], done: shares.map(() => 0), startedAt };
+    // The page's copy of the numbers; each part is put in place as it arrives, so the last one finds little left to do.
+    this.active = { job, plan, handlers, parts: [], done: shares.map(() => 0), startedAt, data: new Float64Array(plan.total * STRIDE) };
     shares.forEach((ranges, w) => {
       const request: SweepRequest = { type: 'run', job, plan, ranges };
       this.workers[w]!.postMessage(request);
@@ -101,34 +102,40 @@ export class SweepPool {
       active.handlers.progress(active.done.reduce((a, b) => a + b, 0), active.plan.total);
       return;
     }
-    const arrivedAt = now();
+    const part = { ...m, arrivedAt: now() };
     active.done[w] = m.count;
-    active.parts.push(m);
-    (m as Part & { arrivedAt?: number }).arrivedAt = arrivedAt;
+    placePart(active.data, part);
+    active.parts.push(part);
     if (active.parts.length < active.done.length) {
       active.handlers.progress(active.done.reduce((a, b) => a + b, 0), active.plan.total);
       return;
     }
     this.active = null;
-    active.handlers.done(assemble(active.plan, active.parts as (Part & { arrivedAt: number })[], active.startedAt));
+    active.handlers.done(joinParts(active.plan, active.data, active.parts, active.startedAt));
   }
+}
+
+/** Copies a part's numbers to their places in plan order. */
+export function placePart(data: Float64Array, part: Pick<Part, 'ranges' | 'data'>): void {
+  let pos = 0;
+  for (const [a, b] of part.ranges) {
+    data.set(part.data.subarray(pos * STRIDE, (pos + b - a) * STRIDE), a * STRIDE);
+    pos += b - a;
+  }
+}
+
+/** The result once every part's numbers are in place: fronts and extents joined. */
+export function joinParts(plan: SweepPlan, data: Float64Array, parts: (Part & { arrivedAt: number })[], startedAt: number): SweepResult {
+  const { fronts, overall } = joinFronts(data, parts.map((p) => p.fronts), plan.schemes.length);
+  return {
+    plan, data, count: parts.reduce((n, p) => n + p.count, 0), feasible: parts.reduce((n, p) => n + p.feasible, 0), bounds: joinBounds(parts), fronts, overall,
+    times: { startedAt, parts: parts.map((p) => ({ ...p.times, arrivedAt: p.arrivedAt, points: p.count })), mergedAt: now() },
+  };
 }
 
 /** Puts the parts' numbers back in plan order and joins their fronts and extents. */
 export function assemble(plan: SweepPlan, parts: (Part & { arrivedAt: number })[], startedAt: number): SweepResult {
   const data = new Float64Array(plan.total * STRIDE);
-  let count = 0;
-  for (const part of parts) {
-    let pos = 0;
-    for (const [a, b] of part.ranges) {
-      data.set(part.data.subarray(pos * STRIDE, (pos + b - a) * STRIDE), a * STRIDE);
-      pos += b - a;
-    }
-    count += part.count;
-  }
-  const { fronts, overall } = joinFronts(data, parts.map((p) => p.fronts), plan.schemes.length);
-  return {
-    plan, data, count, feasible: parts.reduce((n, p) => n + p.feasible, 0), bounds: joinBounds(parts), fronts, overall,
-    times: { startedAt, parts: parts.map((p) => ({ ...p.times, arrivedAt: p.arrivedAt, points: p.count })), mergedAt: now() },
-  };
+  for (const part of parts) placePart(data, part);
+  return joinParts(plan, data, parts, startedAt);
 }

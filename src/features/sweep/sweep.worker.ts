@@ -33,7 +33,7 @@ scope.onmessage = (event: MessageEvent<SweepRequest>): void => {
     let last = performance.now();
     const progress = (done: number): void => {
       const t = performance.now();
-      if (t - last < 100) return;
+      if (t - last < 200) return;
       last = t;
       post({ type: 'progress', job: m.job, done });
     };
