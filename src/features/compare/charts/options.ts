@@ -21,6 +21,13 @@ export interface LineAxes {
 const FAST = { animation: false, responsive: true, maintainAspectRatio: false } as const;
 
 /**
+ * A plugin switched off for a chart (`false` in its options), not merely hidden: a hidden legend or
+ * title still takes part in every layout pass and plugin call of every update. Chart.js documents
+ * `false` here; its option types do not list it.
+ */
+const OFF = false as unknown as Record<string, never>;
+
+/**
  * Options for a line chart on linear x and y axes. Data points are pre-built {x, y} objects, so
  * parsing is off; only 'value' curves get tooltips (reference lines are explained in the legend).
  */
@@ -33,7 +40,8 @@ export function lineOptions(s: LineSeries, a: LineAxes): ChartOptions<'line'> {
     layout: { padding: { right: 8 } },
     elements: { point: { borderWidth: 1.5 } },
     plugins: {
-      legend: { display: false },
+      legend: OFF, // the legend is drawn in HTML above the chart
+      title: OFF,
       tooltip: {
         filter: (item: TooltipItem<'line'>) => (item.dataset as LineDataset).kind === 'value',
         callbacks: {
@@ -77,6 +85,7 @@ export function stackedBarOptions(yTitle: string, value: (v: number) => string, 
     interaction: { mode: 'nearest', intersect: true },
     plugins: {
       legend: { position: 'bottom', reverse: false, labels: { boxWidth: 12, boxHeight: 12, padding: 10, color: INK } },
+      title: OFF,
       tooltip: {
         callbacks: {
           label: (item) => `${item.dataset.label ?? ''}: ${value(Number(item.raw))}`,
