@@ -131,6 +131,7 @@ describe('Compare in the browser', () => {
     expect(nominal.charts).not.toContain('duty');
     expect(await stressChartPixels(page)).toBe(stressBefore);
     console.log(`Compare: Vin,nom edit → ${nominal.charts.length} of ${CHARTS.length} charts redrawn (${nominal.charts.join(', ')}), done in ${nominal.slowestMs.toFixed(1)} ms`);
+    await page.locator('[data-charts]').screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-architect-charts.png') });
 
     await expect.poll(() => page.locator('[data-save-state]').getAttribute('data-save-state')).toBe('unsaved');
     await page.getByRole('button', { name: 'Save', exact: true }).click();
@@ -177,6 +178,9 @@ describe('Compare in the browser', () => {
     expect(await page.getByRole('button', { name: 'Save', exact: true }).count()).toBe(0);
     expect(await page.getByText('read-only').count()).toBeGreaterThan(0);
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-sales.png'), fullPage: true });
+    await page.locator('[data-charts]').scrollIntoViewIfNeeded();
+    for (const name of CHARTS) await page.locator(`[data-chart="${name}"] canvas`).waitFor();
+    await page.locator('[data-charts]').screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-sales-charts.png') });
     expect((await page.goto(`${server.url}/compare`))?.status()).toBe(403);
     await page.context().close();
   });
