@@ -46,6 +46,8 @@ export function castBallot(db: Db, shortlistId: string, voterId: string, ballot:
 async function drain(db: Db, perShortlist: Map<string, Pending[]>, shortlistId: string): Promise<void> {
   const queue = perShortlist.get(shortlistId)!;
   while (queue.length > 0) {
+    // One turn of the event loop first: PGlite runs a whole transaction without yielding to I/O,
+    // so ballots already received would otherwise never find one running to wait behind.
     await new Promise((resolve) => setImmediate(resolve));
     const batch: Pending[] = [];
     const later: Pending[] = [];
