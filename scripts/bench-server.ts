@@ -4,7 +4,7 @@
 import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 
@@ -22,6 +22,12 @@ const base = `http://127.0.0.1:${port}`;
 const rssMiB = (pid: number): number => {
   const line = readFileSync(`/proc/${pid}/status`, 'utf8').split('\n').find((l) => l.startsWith('VmRSS:'));
   return Number(line?.match(/(\d+)/)?.[1] ?? 0) / 1024;
+};
+
+/** User + system CPU time of a process so far (ms): per-request cost that holds up on a busy machine. */
+const cpuMs = (pid: number): number => {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  return (Number(fields[11]) + Number(fields[12])) * 10; // utime + stime, clock ticks of 10 ms
 };
 
 /** Starts the server on `dataDir`; resolves with the child and the time until /health answered. */
@@ -52,15 +58,19 @@ try {
   const body = readFileSync('examples/telecom-brick-36-75v-12v.json', 'utf8');
   let peakMiB = restMiB;
   const sampler = setInterval(() => { peakMiB = Math.max(peakMiB, rssMiB(child.pid!)); }, 200);
+  const cpuBeforeMs = cpuMs(child.pid!);
   const result = await autocannon({
     url: `${base}/api/v1/evaluate`, method: 'POST', connections: 100, duration: 10,
     headers: { 'content-type': 'application/json', cookie }, body,
   });
   clearInterval(sampler);
+  const serverCpuMs = cpuMs(child.pid!) - cpuBeforeMs;
   const afterMiB = rssMiB(child.pid!);
   console.log(`Server ready: first start ${first.readyMs.toFixed(0)} ms (creates the database, migrations, demo seed; ${firstRestMiB.toFixed(0)} MiB resident after it), restart ${readyMs.toFixed(0)} ms`);
   console.log(`POST /api/v1/evaluate, 100 connections, 10 s: ${result.requests.total} requests, ${result.non2xx} non-2xx, ${result.errors} errors; p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${result.requests.average.toFixed(0)} req/s`);
+  console.log(`Server CPU time per request under that load: ${(serverCpuMs / Math.max(1, result.requests.total)).toFixed(2)} ms (${serverCpuMs} ms for ${result.requests.total} requests; one core serves at most ≈ ${Math.round((1000 * result.requests.total) / Math.max(1, serverCpuMs))} req/s)`);
   console.log(`Resident memory after a restart: ${restMiB.toFixed(0)} MiB at rest, ${peakMiB.toFixed(0)} MiB peak under load, ${afterMiB.toFixed(0)} MiB after`);
+  console.log(`Load average (1, 5, 15 min) at the end: ${loadavg().map((l) => l.toFixed(2)).join(', ')} on this ${availableParallelism()}-core machine`);
 } finally {
   child.kill('SIGTERM');
   await new Promise((r) => child.once('exit', r));

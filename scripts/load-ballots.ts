@@ -5,9 +5,9 @@
 // loopback port with a throw-away data folder (demo mode) and stops it afterwards
 // (RESETWISE_DIST names another build folder).
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 
@@ -61,6 +61,13 @@ async function inBatches<T, R>(items: T[], size: number, work: (item: T) => Prom
   return out;
 }
 
+/** User + system CPU time of the server this script started (ms), or null for --url. */
+const serverCpuMs = (): number | null => {
+  if (!child?.pid) return null;
+  const fields = readFileSync(`/proc/${child.pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  return (Number(fields[11]) + Number(fields[12])) * 10; // utime + stime, clock ticks of 10 ms
+};
+
 const percentile = (sorted: number[], p: number): number => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
 
 try {
@@ -84,6 +91,7 @@ try {
   const cookies = await inBatches(voters, 8, (v) => signIn(v.email, password));
 
   console.log(`Casting ${voterCount} ballots at once…`);
+  const cpuBefore = serverCpuMs();
   const started = performance.now();
   const results = await Promise.all(
     cookies.map(async (cookie, i) => {
@@ -94,6 +102,7 @@ try {
     }),
   );
   const wallMs = performance.now() - started;
+  const cpuAfter = serverCpuMs();
   const failed = results.filter((r) => r.status !== 201);
   await call('POST', `/shortlists/${shortlist.json.id}/close`, architect, {});
   const tally = (await call('GET', `/shortlists/${shortlist.json.id}`, architect)).json.tally as { ballots: number; candidates: { borda: number }[] };
@@ -101,6 +110,8 @@ try {
   const points = tally.candidates.reduce((sum, c) => sum + c.borda, 0);
   console.log(`\nBallots: ${results.length} sent, ${results.length - failed.length} accepted, ${failed.length} refused; tally counts ${tally.ballots} (Borda points ${points}, expected ${voterCount * 3})`);
   console.log(`PUT /api/v1/shortlists/:id/ballot latency, ${voterCount} at once: p50 ${percentile(latencies, 50).toFixed(1)} ms, p95 ${percentile(latencies, 95).toFixed(1)} ms, p99 ${percentile(latencies, 99).toFixed(1)} ms, max ${latencies.at(-1)!.toFixed(1)} ms; all done in ${wallMs.toFixed(0)} ms`);
+  if (cpuBefore !== null && cpuAfter !== null) console.log(`Server CPU time during the burst: ${cpuAfter - cpuBefore} ms (${((cpuAfter - cpuBefore) / voterCount).toFixed(1)} ms per ballot)`);
+  console.log(`Load average (1, 5, 15 min): ${loadavg().map((l) => l.toFixed(2)).join(', ')} on this ${availableParallelism()}-core machine`);
   if (failed.length > 0 || tally.ballots !== voterCount || points !== voterCount * 3) {
     console.error('FAILED: ballots were lost, refused or double-counted');
     process.exitCode = 1;
