@@ -63,7 +63,7 @@ export function resultOf(d: Design): SchemeResult {
     lossesW, efficiency: d.efficiency, efficiencyVsLoad,
     partCount: d.partCount, parts, bomCost: d.bomCost, currency: d.index.library.currency, score: d.score,
     details: {
-      voltSecondsV: d.kV, dropsV: d.dropsV, resetDutyLimit: d.resetDutyLimit, transientSwitchV: d.transientV,
+      voltSecondsV: d.kV, dropsV: d.dropsV, leakageDropV: d.leakageDropV, resetDutyLimit: d.resetDutyLimit, transientSwitchV: d.transientV,
       leakageSpikeV: d.spikeV, primaryPeakA: d.primaryPeakA, inductorRippleA: d.rippleA,
       magnetizingInductanceH: d.lmH, leakageInductanceH: d.llkH, transientFluxSwingT: d.bTransientT,
       availableFluxSwingT: d.bAvailableT, windowFill: d.windowFill, skinDepthM: d.skinDepthM, strandAwg: d.strandAwg,

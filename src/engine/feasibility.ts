@@ -28,6 +28,7 @@ function failMessage(code: FailCode, d: Design): string {
     case 'no-output-capacitor': return `no output capacitor bank in the library reaches ${f1(d.outputCapacitanceF * 1e6)} µF at the ESR needed`;
     case 'no-output-inductor': return 'no output-inductor family in the library stores the energy needed';
     case 'no-clamp-part': return `no clamp or snubber part in the library takes the voltage or power (${f1(d.lossesW.resetOrClamp)} W) of the reset network`;
+    case 'leakage-commutation': return `the leakage inductance (${f1(d.llkH * 1e6)} µH) takes so long to hand the load current to the forward rectifier that no turns ratio reaches the output within duty ${f3(d.dutyLimit)} at ${s.vinMinV} V: lower the leakage ratio or the switching frequency`;
     case 'unknown-part': return 'an override names a part id that is not in the library or not of the right kind';
   }
 }

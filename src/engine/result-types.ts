@@ -45,8 +45,11 @@ export interface SchemeResult {
   score: number;
   /** Extra design figures (SI units). */
   details: {
+    /** Volt-seconds × fs reaching the core and the output, K = (Vout + drops)/n. */
     voltSecondsV: number;
     dropsV: number;
+    /** Output voltage lost to the leakage inductance at Vin,min (commutation and current ramp), n·Llk·fs·(n·IL,max + ΔIm). */
+    leakageDropV: number;
     resetDutyLimit: number;
     transientSwitchV: number;
     leakageSpikeV: number;

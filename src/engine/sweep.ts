@@ -1,4 +1,5 @@
 import type { NormalisedSpec } from '../schemas/spec';
+import { switchDutyAt } from './design/duty';
 import { designScheme } from './design/pipeline';
 import { indexLibrary } from './parts/index-library';
 import { demoPartsLibrary } from './parts/demo-library';
@@ -25,7 +26,7 @@ export function sweepVin(spec: NormalisedSpec, scheme: SchemeId, points = 41, li
   const out: VinSweepPoint[] = [];
   for (let k = 0; k < points; k++) {
     const vinV = spec.vinMinV + ((spec.vinMaxV - spec.vinMinV) * k) / (points - 1);
-    out.push({ vinV, duty: d.kV / vinV, switchV: model.offStateV(d, vinV), rectifierForwardV: d.turnsRatio * model.resetVoltageV(d, vinV) });
+    out.push({ vinV, duty: switchDutyAt(d, vinV), switchV: model.offStateV(d, vinV), rectifierForwardV: d.turnsRatio * model.resetVoltageV(d, vinV) });
   }
   return out;
 }

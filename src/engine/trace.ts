@@ -28,12 +28,12 @@ export function traceOf(d: Design, model: ResetSchemeModel): Record<string, Trac
   const t: Record<string, TraceEntry> = {
     dutyLimit: { formula: f.dutyLimit, inputs: [i('reset limit', d.resetDutyLimit, ''), i('maxDuty', s.maxDuty, '')], value: d.dutyLimit, unit: '', source: f.source },
     turnsRatio: {
-      formula: 'n = Ns/Np = (Vout + VF + Vw)/(Dlim·Vin,min)',
-      inputs: [i('Vout', s.voutV, 'V'), i('VF', d.rectifierDropV, 'V'), i('Vw', d.windingDropV, 'V'), i('Dlim', d.dutyLimit, ''), i('Vin,min', s.vinMinV, 'V')],
-      value: d.turnsRatio, unit: '', source: `derived (volt-second balance on L; Erickson & Maksimović §6.3.4 [M]); Vw = ${WINDING_DROP_SHARE * 100} % of Vout (common practice)`,
+      formula: 'n = Ns/Np from n·Dlim·Vin,min = (Vout + VF + Vw)·(1 + Llk/Lm) + n²·c, c = Llk·IL,max·fs (leakage)',
+      inputs: [i('Vout', s.voutV, 'V'), i('VF', d.rectifierDropV, 'V'), i('Vw', d.windingDropV, 'V'), i('c', d.leakageCoefficientV, 'V'), i('Llk/Lm', s.leakageRatio, ''), i('Dlim', d.dutyLimit, ''), i('Vin,min', s.vinMinV, 'V')],
+      value: d.turnsRatio, unit: '', source: `derived (volt-second balance on L; Erickson & Maksimović §6.3.4 [M]; leakage volt-seconds Llk·(n·IL,max + ΔIm) derived); Vw = ${WINDING_DROP_SHARE * 100} % of Vout (common practice)`,
     },
-    'duty.atVinMin': { formula: 'D = (Vout + drops)/(n·Vin)', inputs: [i('Vout + drops', s.voutV + d.dropsV, 'V'), i('n', d.turnsRatio, ''), i('Vin', s.vinMinV, 'V')], value: d.dutyAtVinMin, unit: '', source: 'derived (volt-second balance)' },
-    switchPeakV: { formula: `${f.offState}; worst of Vin,min and Vin,max`, inputs: [...vin, i('Vin·D', d.kV, 'V')], value: d.switchPeakV, unit: 'V', source: f.source },
+    'duty.atVinMin': { formula: 'D = ((Vout + drops)/n + Llk·fs·(n·IL,max + ΔIm))/Vin', inputs: [i('Vout + drops', s.voutV + d.dropsV, 'V'), i('n', d.turnsRatio, ''), i('Vin', s.vinMinV, 'V'), i('Llk', d.llkH, 'H'), i('fs', s.fswHz, 'Hz')], value: d.dutyAtVinMin, unit: '', source: 'derived (volt-second balance; the second term is what the leakage takes: rectifier commutation and the current ramp)' },
+    switchPeakV: { formula: `${f.offState}; worst of Vin,min and Vin,max`, inputs: [...vin, i('K = (Vout + drops)/n', d.kV, 'V')], value: d.switchPeakV, unit: 'V', source: f.source },
     switchStressV: {
       formula: `max(peak·(1 + allowance), transient) + spike; transient: ${f.transient}`,
       inputs: [i('peak', d.switchPeakV, 'V'), i('allowance', model.clampAllowance, ''), i('transient', d.transientV, 'V'), i('spike', d.spikeV, 'V')],
@@ -42,19 +42,19 @@ export function traceOf(d: Design, model: ResetSchemeModel): Record<string, Trac
     switchRatingV: { formula: 'cheapest library class with Vds ≥ stress/derating', inputs: [i('stress', d.switchStressV, 'V'), i('derating', s.voltageDerating, '')], value: d.switchRatingV, unit: 'V', source: 'rule of thumb V_rating ≥ V_peak/0.8 (common practice; cf. MIL-DTL-917 Table XIX)' },
     'rectifierReverseV.forward': { formula: f.forwardReverse, inputs: [i('n', d.turnsRatio, ''), ...vin], value: d.rectForwardV, unit: 'V', source: f.source },
     'rectifierReverseV.freewheel': { formula: 'VR(D2) = n·Vin,max', inputs: [i('n', d.turnsRatio, ''), i('Vin,max', s.vinMaxV, 'V')], value: d.rectFreewheelV, unit: 'V', source: 'derived; Mohan, Undeland & Robbins ch. 10 [M]' },
-    magnetizingPeakA: { formula: model.bipolarFlux ? 'Im,pk = Vin·D/(2·Lm·fs) (bipolar)' : 'Im,pk = Vin·D/(Lm·fs)', inputs: [i('Vin·D', d.kV, 'V'), i('Lm', d.lmH, 'H'), i('fs', s.fswHz, 'Hz')], value: d.magnetizingPeakA, unit: 'A', source: 'derived (volt-second balance)' },
+    magnetizingPeakA: { formula: model.bipolarFlux ? 'Im,pk = Vin·D/(2·Lm·fs) (bipolar)' : 'Im,pk = Vin·D/(Lm·fs)', inputs: [i('K = (Vout + drops)/n', d.kV, 'V'), i('Lm', d.lmH, 'H'), i('fs', s.fswHz, 'Hz')], value: d.magnetizingPeakA, unit: 'A', source: 'derived (volt-second balance)' },
     primaryRmsA: { formula: 'Irms = √(n²·D·(Io² + ΔIL²/12) + Im,pk²·D/3) at Vin,min', inputs: [i('n', d.turnsRatio, ''), i('D', d.dutyAtVinMin, ''), i('Io', s.ioutA, 'A'), i('ΔIL', d.rippleA, 'A'), i('Im,pk', d.magnetizingPeakA, 'A')], value: d.primaryRmsA, unit: 'A', source: 'derived' },
     outputInductanceH: { formula: 'L = (Vout + VF)·(1 − Dmin)/(r·Io·fs), snapped up to E12', inputs: [i('Vout + drops', s.voutV + d.dropsV, 'V'), i('Dmin', d.dutyAtVinMax, ''), i('r', s.rippleRatio, ''), i('Io', s.ioutA, 'A'), i('fs', s.fswHz, 'Hz')], value: d.outputInductanceH, unit: 'H', source: 'Mohan, Undeland & Robbins ch. 7 [M]; IEC 60063:2015 E12' },
     outputCapacitanceF: { formula: `C = ΔIL/(8·fs·ΔVo/2)/(1 − ${CAP_TOLERANCE}), snapped up to E6`, inputs: [i('ΔIL', d.rippleA, 'A'), i('fs', s.fswHz, 'Hz'), i('ΔVo', s.voutRippleV, 'V')], value: d.outputCapacitanceF, unit: 'F', source: 'Mohan, Undeland & Robbins ch. 7 [M]; IEC 60063:2015 E6; half the ripple budget to ESR (common practice)' },
-    'core.turnsPrimary': { formula: 'Np = ⌈Vin·D/(ΔB·Ae·fs)⌉, ΔB limited by core loss and transient saturation', inputs: [i('Vin·D', d.kV, 'V'), i('Ae', d.core?.aeM2 ?? NaN, 'm²'), i('fs', s.fswHz, 'Hz'), i('Pv target', CORE_LOSS_DENSITY_W_PER_M3, 'W/m³')], value: d.turnsPrimary, unit: 'turns', source: 'Faraday (derived); McLyman ch. 7 area product [M]' },
-    'core.deltaBT': { formula: 'ΔB = Vin·D/(Np·Ae·fs)', inputs: [i('Vin·D', d.kV, 'V'), i('Np', d.turnsPrimary, 'turns'), i('Ae', d.core?.aeM2 ?? NaN, 'm²'), i('fs', s.fswHz, 'Hz')], value: d.deltaBT, unit: 'T', source: 'derived (Faraday); Erickson & Maksimović ch. 15 [M]' },
+    'core.turnsPrimary': { formula: 'Np = ⌈Vin·D/(ΔB·Ae·fs)⌉, ΔB limited by core loss and transient saturation', inputs: [i('K = (Vout + drops)/n', d.kV, 'V'), i('Ae', d.core?.aeM2 ?? NaN, 'm²'), i('fs', s.fswHz, 'Hz'), i('Pv target', CORE_LOSS_DENSITY_W_PER_M3, 'W/m³')], value: d.turnsPrimary, unit: 'turns', source: 'Faraday (derived); McLyman ch. 7 area product [M]' },
+    'core.deltaBT': { formula: 'ΔB = Vin·D/(Np·Ae·fs)', inputs: [i('K = (Vout + drops)/n', d.kV, 'V'), i('Np', d.turnsPrimary, 'turns'), i('Ae', d.core?.aeM2 ?? NaN, 'm²'), i('fs', s.fswHz, 'Hz')], value: d.deltaBT, unit: 'T', source: 'derived (Faraday); Erickson & Maksimović ch. 15 [M]' },
     'core.coreLossW': { formula: 'P = Ve·k·f^α·(ΔB/2)^β', inputs: [i('Ve', d.core?.veM3 ?? NaN, 'm³'), i('k', d.core?.steinmetzK ?? NaN, 'W/m³'), i('α', d.core?.steinmetzAlpha ?? NaN, ''), i('β', d.core?.steinmetzBeta ?? NaN, ''), i('ΔB', d.deltaBT, 'T')], value: d.coreLossW, unit: 'W', source: 'Steinmetz 1892; three-parameter form (iGSE/MSE literature) [M]' },
     'lossesW.resetOrClamp': { formula: f.resetLoss, inputs: [i('Lm', d.lmH, 'H'), i('Llk', d.llkH, 'H'), i('Ip', d.primaryPeakA, 'A'), i('fs', s.fswHz, 'Hz')], value: d.lossesW.resetOrClamp, unit: 'W', source: f.source },
     efficiency: { formula: 'η = Pout/(Pout + ΣP) at Vin,nom, full load', inputs: [i('Pout', d.poutW, 'W'), i('ΣP', d.lossesW.total, 'W')], value: d.efficiency, unit: '', source: 'definition; loss terms: Mohan, Undeland & Robbins 3rd ed. ch. 2 [M]; Erickson & Maksimović §4.3 [M]; common practice' },
     bomCost: { formula: 'Σ qty·unit price at the annual-volume tier', inputs: [i('annualVolume', s.annualVolume, 'pcs/year'), i('parts', d.partCount, 'pcs')], value: d.bomCost, unit: d.index.library.currency, source: `parts library "${d.index.library.name}" ${d.index.library.version}` },
   };
   if (Number.isFinite(d.clampV)) {
-    t.clampCapacitorV = { formula: f.offState, inputs: [...vin, i('Vin·D', d.kV, 'V')], value: d.clampV, unit: 'V', source: f.source };
+    t.clampCapacitorV = { formula: f.offState, inputs: [...vin, i('K = (Vout + drops)/n', d.kV, 'V')], value: d.clampV, unit: 'V', source: f.source };
   }
   return t;
 }

@@ -26,10 +26,10 @@ describe('SPICE netlist text', () => {
     expect(text).toMatch(/^\.tran .* UIC$/m);
     for (const m of ['vsw_pk MAX v(d)', 'vout_avg AVG v(out)', 'il_max MAX i(VIL)', 'il_min MIN i(VIL)']) expect(text).toContain(`.meas tran ${m}`);
     expect(text.trimEnd().endsWith('.end')).toBe(true);
-    // Duty from the engine's volt-seconds: PW + rise = D·T (derived).
+    // The engine's switch duty at this input (volt-seconds plus the leakage commutation time): PW + rise = D·T (derived).
     const pw = Number(/PULSE\(0 1 0 (\S+) \S+ (\S+) (\S+)\)/.exec(text)![2]);
     const tr = Number(/PULSE\(0 1 0 (\S+)/.exec(text)![1]);
-    expect((pw + tr) * spec.fswHz).toBeCloseTo(result.details.voltSecondsV / spec.vinMinV, 5);
+    expect((pw + tr) * spec.fswHz).toBeCloseTo(result.duty.atVinMin, 5);
   });
 
   test.each([

@@ -1,10 +1,11 @@
 import { CAP_TOLERANCE, RDS_HOT_FACTOR, WINDING_DROP_SHARE } from '../assumptions';
 import { E12, E6, snapUpIn } from '../eseries';
-import { capacitanceForRippleF, inductanceForRippleH, inductorRippleA } from '../filter';
+import { capacitanceForRippleF, inductanceForRippleH } from '../filter';
 import type { MosfetPart, RectifierPart } from '../parts/types';
 import { unitPriceAt } from '../parts/index-library';
 import { picked, selectCapacitor, selectInductor, selectMosfet, selectRectifier } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
+import { rippleAtA, turnsRatioWithLeakage } from './duty';
 import type { Design } from './types';
 
 /**
@@ -63,7 +64,11 @@ export function chooseRectifier(d: Design, model: ResetSchemeModel): void {
   }
 }
 
-/** Stage 1–2: duty limit, rectifier drop, turns ratio, volt-seconds K and the duty at three lines. */
+/**
+ * Stage 1–2: duty limit, rectifier drop, turns ratio and volt-seconds K. The first pass has no
+ * leakage figure yet (leakageCoefficientV = 0); the pipeline repeats this stage once Llk is known, and
+ * sets the switch duties at three lines afterwards (design/duty.ts).
+ */
 export function designConversion(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
   const ov = d.ov;
@@ -74,16 +79,25 @@ export function designConversion(d: Design, model: ResetSchemeModel): void {
   for (let pass = 0; pass < 2; pass++) {
     d.rectifierDropV = rectifierDrop(d);
     d.dropsV = d.rectifierDropV + d.windingDropV;
-    d.turnsRatio = ov?.turnsRatio ?? turnsRatioFor(s.voutV, d.dropsV, d.dutyLimit, s.vinMinV);
+    d.turnsRatio = ov?.turnsRatio ?? ratioAtDutyLimit(d);
     d.kV = (s.voutV + d.dropsV) / d.turnsRatio;
     model.prepare(d);
     chooseRectifier(d, model);
   }
   if (!d.rectSr && !d.rectDiode) d.fails.push('no-rectifier');
-  d.dutyAtVinMin = d.kV / s.vinMinV;
-  d.dutyAtVinNom = d.kV / s.vinNomV;
-  d.dutyAtVinMax = d.kV / s.vinMaxV;
-  if (d.dutyAtVinMin > d.dutyLimit + 1e-9) d.fails.push('duty-cannot-reach-output');
+}
+
+/**
+ * Turns ratio at the duty limit, with the leakage commutation loss once it is known. When no
+ * ratio reaches the output, the ratio of the largest output (n = Dlim·Vin,min/(2c)) keeps every
+ * figure defined; the pipeline records the failure once the design has settled.
+ */
+function ratioAtDutyLimit(d: Design): number {
+  const s = d.spec;
+  const c = d.leakageCoefficientV;
+  if (!(c > 0)) return turnsRatioFor(s.voutV, d.dropsV, d.dutyLimit, s.vinMinV);
+  const n = turnsRatioWithLeakage(s.voutV + d.dropsV, s.leakageRatio, c, d.dutyLimit, s.vinMinV);
+  return Number.isFinite(n) ? n : (d.dutyLimit * s.vinMinV) / (2 * c);
 }
 
 /** Stage 3: output L for the ripple ratio (E12, snapped up) and C for the ripple voltage (E6, snapped up). */
@@ -91,8 +105,15 @@ export function designFilter(d: Design): void {
   const s = d.spec;
   const voPlusDrop = s.voutV + d.dropsV;
   const target = s.rippleRatio * s.ioutA;
-  d.outputInductanceH = snapUpIn(inductanceForRippleH(voPlusDrop, d.dutyAtVinMax, target, s.fswHz), E12);
-  d.rippleA = inductorRippleA(voPlusDrop, d.dutyAtVinMax, d.outputInductanceH, s.fswHz);
+  // The inductor charges for the switch duty less the commutation time (design/duty.ts); Llk and Lm are
+  // those of the previous pass (none in the first).
+  const lkV = d.llkH > 0 && d.lmH > 0 ? d.llkH * s.fswHz * (d.turnsRatio * target + d.kV / (d.lmH * s.fswHz)) : 0;
+  // Capped so every figure stays defined when the leakage alone would fill the period (the duty check flags that design).
+  const dMin = Math.min((d.kV + lkV) / s.vinMaxV, 0.95);
+  const snapped = snapUpIn(inductanceForRippleH(voPlusDrop, dMin, target, s.fswHz), E12);
+  // A later pass never steps L down (see designMagnetics: the passes must settle, not swing).
+  d.outputInductanceH = d.leakageCoefficientV > 0 && d.outputInductanceH > snapped ? d.outputInductanceH : snapped;
+  d.rippleA = rippleAtA(d, s.vinMaxV);
   // Half the ripple budget to capacitance, half to ESR (common practice).
   const cMin = capacitanceForRippleF(d.rippleA, s.fswHz, s.voutRippleV / 2);
   d.outputCapacitanceF = snapUpIn(cMin / (1 - CAP_TOLERANCE), E6);

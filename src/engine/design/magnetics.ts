@@ -27,11 +27,11 @@ export function copperLossW(d: Design, duty: number, ioA: number, rippleA: numbe
   return windingLossW(RHO_HOT_OHM_M, core.mltM, at, KU_EFFECTIVE * core.waM2);
 }
 
-function fitTurns(d: Design, core: CorePart, model: ResetSchemeModel, deltaBDesignT: number): void {
+function fitTurns(d: Design, core: CorePart, model: ResetSchemeModel, deltaBDesignT: number, minTurns: number): void {
   const s = d.spec;
   const ov = d.ov;
   d.core = core;
-  d.turnsPrimary = ov?.turnsPrimary ?? Math.max(1, Math.ceil(d.kV / (deltaBDesignT * core.aeM2 * s.fswHz)));
+  d.turnsPrimary = ov?.turnsPrimary ?? Math.max(minTurns, Math.ceil(d.kV / (deltaBDesignT * core.aeM2 * s.fswHz)));
   d.deltaBT = d.kV / (d.turnsPrimary * core.aeM2 * s.fswHz);
   d.bTransientT = (s.vinMaxV * model.transientDuty(d)) / (d.turnsPrimary * core.aeM2 * s.fswHz);
   d.bAvailableT = model.bipolarFlux ? 2 * core.bsatT : core.bsatT - core.brT;
@@ -80,14 +80,22 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const pt = forwardApparentPowerW((s.voutV + d.dropsV) * s.ioutA, duty, 0.9);
   const ap = areaProductM4(duty, pt, KU_EFFECTIVE, deltaBDesignT, CURRENT_DENSITY_A_PER_M2, s.fswHz);
   const forcedId = d.ov?.partIds?.core;
+  // A later pass (with the leakage) never moves to a smaller core nor takes turns off the same core:
+  // either would cut Llk, and the passes could swing between two choices instead of settling (the
+  // core only grows, the flux only falls).
+  const prevCore = d.leakageCoefficientV > 0 ? d.core : null;
+  const prevTurns = d.turnsPrimary;
+  const minTurns = (core: CorePart): number => (core === prevCore ? Math.max(1, prevTurns) : 1);
   if (forcedId) {
     const core = ix.byId.get(forcedId) as CorePart | undefined;
     if (!core || !('aeM2' in core)) { d.fails.push('unknown-part'); return; }
-    fitTurns(d, core, model, deltaBDesignT);
+    fitTurns(d, core, model, deltaBDesignT, minTurns(core));
     d.corePrice = unitPriceAt(core.tiers, s.annualVolume);
   } else {
     const prices = d.prices.coresByAp;
     let c = selectCore(ix.coresByAp, ix.coreApM4, prices, ap);
+    const floor = prevCore ? ix.coresByAp.indexOf(prevCore) : -1;
+    if (c >= 0 && c < floor) c = floor;
     if (c < 0) {
       // Nothing large enough: carry on with the largest core so every figure stays defined.
       d.fails.push('no-core');
@@ -95,7 +103,7 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
     }
     for (let tries = 0; c >= 0 && tries < 4; tries++) {
       const core = ix.coresByAp[c]!;
-      fitTurns(d, core, model, deltaBDesignT);
+      fitTurns(d, core, model, deltaBDesignT, minTurns(core));
       d.corePrice = prices[c]!;
       if (d.windowFill <= 1) break;
       // Windings do not fit: move to the next larger area product.

@@ -1,7 +1,7 @@
 import {
   BODY_DIODE_V, GATE_DRIVE_V, PLATEAU_CURRENT_SHARE, RDS_HOT_FACTOR, SR_DEAD_TIME_S, SWITCHING_CHARGE_SHARE,
 } from '../assumptions';
-import { inductorRippleA } from '../filter';
+import { rippleAtA } from './duty';
 import {
   capacitiveLossW, conductionLossW, gateDriveLossW, overlapLossW, reverseRecoveryLossW, transitionTimeS,
 } from '../losses/semiconductor';
@@ -26,7 +26,7 @@ export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadF
   const fs = s.fswHz;
   const io = s.ioutA * loadFraction;
   const duty = d.kV / vinV;
-  const ripple = inductorRippleA(s.voutV + d.dropsV, duty, d.outputInductanceH, fs);
+  const ripple = rippleAtA(d, vinV);
   const iL2 = io * io + (ripple * ripple) / 12;
   const n = d.turnsRatio;
   const im = d.magnetizingPeakA;

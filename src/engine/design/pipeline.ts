@@ -8,8 +8,10 @@ import { chooseRectifier, designConversion, designFilter } from './converter';
 import { designMagnetics } from './magnetics';
 import { efficiencyOf, lossesAt } from './operating-point';
 import { newDesign, resetDesign } from './record';
+import { leakageCoefficientV, leakageVoltSecondsV, switchDutyAt, turnsRatioWithLeakage } from './duty';
 import { designCurrents, designSnubber, designStress } from './stress';
 import type { Design } from './types';
+import type { ResetSchemeModel } from '../schemes/types';
 
 /**
  * Design one scheme for a normalised spec: the lean pipeline shared by `evaluate` (which adds
@@ -28,13 +30,53 @@ export function designSchemeInto(d: Design, spec: NormalisedSpec, scheme: Scheme
   return runStages(resetDesign(d, spec, scheme, index));
 }
 
-function runStages(d: Design): Design {
-  const spec = d.spec;
-  const model = schemeModel(d.scheme);
+/** Switch duty at the three lines (effective duty plus the commutation time; design/duty.ts). */
+function setSwitchDuties(d: Design): void {
+  const s = d.spec;
+  d.dutyAtVinMin = switchDutyAt(d, s.vinMinV);
+  d.dutyAtVinNom = switchDutyAt(d, s.vinNomV);
+  d.dutyAtVinMax = switchDutyAt(d, s.vinMaxV);
+}
+
+/** Conversion, filter and magnetics: the stages that depend on the leakage through n. */
+function designFront(d: Design, model: ResetSchemeModel): void {
   designConversion(d, model);
   d.transientDuty = model.transientDuty(d);
   designFilter(d);
+  setSwitchDuties(d);
   designMagnetics(d, model);
+}
+
+/** Passes after the first are repeated while c = Llk·IL,max·fs moves by more than this share (Llk depends on Np and the core). */
+export const LEAKAGE_SETTLE = 1e-3;
+
+function runStages(d: Design): Design {
+  const spec = d.spec;
+  const model = schemeModel(d.scheme);
+  designFront(d, model);
+  // Once Llk is known, redesign with the volt-seconds the leakage takes (design/duty.ts). Usually one
+  // or two more passes settle c; when a discrete choice (core, turns, an E12 inductor) keeps moving
+  // it, later passes only let c grow, which ends the passes and errs towards a larger turns ratio.
+  for (let pass = 0; pass < 6 && d.core; pass++) {
+    const found = leakageCoefficientV(d, spec.vinMinV);
+    const c = pass < 2 ? found : Math.max(found, d.leakageCoefficientV);
+    if (!(c > 0) || Math.abs(c - d.leakageCoefficientV) <= LEAKAGE_SETTLE * c) break;
+    // When the leakage alone would fill the on time at Vin,min no redesign can help; the duty check below flags it.
+    if (d.kV + leakageVoltSecondsV(d, spec.vinMinV) >= spec.vinMinV) break;
+    d.leakageCoefficientV = c;
+    d.fails.length = 0;
+    designFront(d, model);
+  }
+  setSwitchDuties(d);
+  d.leakageDropV = d.turnsRatio * leakageVoltSecondsV(d, spec.vinMinV);
+  // Slack only for the unsettled share of the leakage term.
+  const slack = (LEAKAGE_SETTLE * leakageVoltSecondsV(d, spec.vinMinV)) / spec.vinMinV + 1e-9;
+  if (d.dutyAtVinMin > d.dutyLimit + slack) {
+    // No turns ratio at all reaches the output once the leakage takes its share: say so rather than "raise n".
+    const c = leakageCoefficientV(d, spec.vinMinV);
+    const noRatio = !d.ov?.turnsRatio && c > 0 && !Number.isFinite(turnsRatioWithLeakage(spec.voutV + d.dropsV, spec.leakageRatio, c, d.dutyLimit, spec.vinMinV));
+    d.fails.push(noRatio ? 'leakage-commutation' : 'duty-cannot-reach-output');
+  }
   if (d.core) {
     designCurrents(d);
     designStress(d, model);

@@ -13,7 +13,7 @@ export function newDesign(spec: NormalisedSpec, scheme: SchemeId, index: Library
     scheme, spec, index, prices: pricesAt(index, spec.annualVolume), ov: spec.overrides[scheme],
     poutW: spec.voutV * spec.ioutA, fails: [],
     resetDutyLimit: NaN, dutyLimit: NaN, transientDuty: NaN, resetTurnsRatio: NaN,
-    rectifierDropV: NaN, windingDropV: NaN, dropsV: NaN, turnsRatio: NaN, kV: NaN,
+    rectifierDropV: NaN, windingDropV: NaN, dropsV: NaN, turnsRatio: NaN, kV: NaN, leakageCoefficientV: 0, leakageDropV: 0,
     dutyAtVinMin: NaN, dutyAtVinNom: NaN, dutyAtVinMax: NaN,
     rippleA: NaN, outputInductanceH: NaN, outputCapacitanceF: NaN, inductor: null, inductorPrice: 0, outCap: null, outCapQty: 0, outCapPrice: 0,
     rectForwardV: NaN, rectFreewheelV: NaN, rectDiode: null, rectSr: null, rectQty: 1, rectPrice: 0,
@@ -66,6 +66,8 @@ export function resetDesign(d: Design, spec: NormalisedSpec, scheme: SchemeId, i
   d.dropsV = NaN;
   d.turnsRatio = NaN;
   d.kV = NaN;
+  d.leakageCoefficientV = 0;
+  d.leakageDropV = 0;
   d.dutyAtVinMin = NaN;
   d.dutyAtVinNom = NaN;
   d.dutyAtVinMax = NaN;

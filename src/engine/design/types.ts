@@ -7,7 +7,7 @@ import type { SchemeId } from '../scheme-ids';
 export type FailCode =
   | 'duty-limit-above-reset' | 'duty-cannot-reach-output' | 'no-switch-for-stress' | 'no-aux-switch'
   | 'no-rectifier' | 'no-core' | 'windings-do-not-fit' | 'flux-above-saturation' | 'resonant-reset-incomplete'
-  | 'no-output-capacitor' | 'no-output-inductor' | 'no-clamp-part' | 'unknown-part';
+  | 'no-output-capacitor' | 'no-output-inductor' | 'no-clamp-part' | 'unknown-part' | 'leakage-commutation';
 
 /** Loss breakdown in watts (contract field names). */
 export interface LossesW {
@@ -46,8 +46,16 @@ export interface Design {
   windingDropV: number;
   dropsV: number;
   turnsRatio: number;
-  /** Volt-seconds per switching period times fs: K = Vin·D (constant over line in regulation). */
+  /**
+   * Volt-seconds per switching period times fs that reach the core and the output:
+   * K = (Vout + drops)/n, constant over line in regulation (Vin·D less what the leakage takes).
+   */
   kV: number;
+  /** c = Llk·IL,max·fs at Vin,min (V), used for the turns ratio; 0 in the first pass (design/duty.ts). */
+  leakageCoefficientV: number;
+  /** Output voltage lost to the leakage at Vin,min, n·Llk·fs·(n·IL,max + ΔIm) (V). */
+  leakageDropV: number;
+  /** Switch duty at three lines, D = (K + Llk·fs·(n·IL,max + ΔIm))/Vin (design/duty.ts). */
   dutyAtVinMin: number;
   dutyAtVinNom: number;
   dutyAtVinMax: number;

@@ -1,5 +1,7 @@
 import { CLAMP_RIPPLE_RATIO, DUTY_MARGIN, WINDING_CAPACITANCE_F } from '../assumptions';
 import { E6, snapUpIn } from '../eseries';
+import { rippleAtA, switchDutyAt } from '../design/duty';
+import type { Design } from '../design/types';
 import { selectMosfet } from '../parts/select';
 import { chooseClampCap, hotRdsOhm } from './common';
 import type { ResetSchemeModel } from './types';
@@ -17,6 +19,36 @@ export function equalStressDuty(vinMinV: number, vinMaxV: number): number {
 export function activeClampOffStateV(vinV: number, kV: number): number {
   if (!(vinV > kV)) throw new RangeError(`active clamp needs Vin > Vin·D (got Vin ${vinV} V, K ${kV} V)`);
   return (vinV * vinV) / (vinV - kV);
+}
+
+/**
+ * Clamp voltage with the switch duty D (design/duty.ts): Cc sits across Lm and Llk in series, whose
+ * volt-seconds balance over a period, so Vin·D = Vc·(1 − D) and Vc = Vin·D/(1 − D); without leakage
+ * D = K/Vin and Vds = Vin + Vc = Vin²/(Vin − K) (derived). Undefined (NaN) when the leakage would push
+ * D to 1 or beyond: no switch is chosen for such a design and the duty check flags it.
+ */
+function clampAt(d: Design, vinV: number): number {
+  const duty = switchDutyAt(d, vinV);
+  return duty < 1 ? (vinV * duty) / (1 - duty) : NaN;
+}
+
+const offStateAt = (d: Design, vinV: number): number => vinV + clampAt(d, vinV);
+
+/**
+ * Cc that holds the clamp ripple to CLAMP_RIPPLE_RATIO·Vc at an input voltage. Two charges: the
+ * magnetizing current's triangle, ΔVc/Vc = (1 − D)²/(8·Lm·Cc·fs²), and the reflected load current
+ * that the leakage keeps flowing into Cc at turn-off until the rectifiers have commutated,
+ * ΔQ = ½·Llk·(n·IL,max)²/Vc (derived by charge balance; the second term is what a simulation of
+ * the clamp with its leakage shows first).
+ */
+function clampCapacitanceF(d: Design, vinV: number): number {
+  const s = d.spec;
+  const duty = switchDutyAt(d, vinV);
+  const vc = clampAt(d, vinV);
+  const magnetizing = ((1 - duty) * (1 - duty) * vc) / (8 * d.lmH * s.fswHz * s.fswHz);
+  const ip = d.turnsRatio * (s.ioutA + rippleAtA(d, vinV) / 2);
+  const leakage = d.llkH > 0 ? (0.5 * d.llkH * ip * ip) / vc : 0;
+  return (magnetizing + leakage) / (CLAMP_RIPPLE_RATIO * vc);
 }
 
 /**
@@ -45,11 +77,11 @@ export const activeClamp: ResetSchemeModel = {
   },
   resetDutyLimit: (spec) => spec.maxDuty,
   designDutyLimit: (spec) => Math.min(spec.maxDuty - DUTY_MARGIN, equalStressDuty(spec.vinMinV, spec.vinMaxV)),
-  transientDuty: (d) => d.kV / d.spec.vinMaxV,
+  transientDuty: (d) => switchDutyAt(d, d.spec.vinMaxV),
   prepare() {},
-  resetVoltageV: (d, vinV) => (d.kV * vinV) / (vinV - d.kV),
-  offStateV: (d, vinV) => activeClampOffStateV(vinV, d.kV),
-  transientV: (d) => activeClampOffStateV(d.spec.vinMaxV, d.kV),
+  resetVoltageV: clampAt,
+  offStateV: offStateAt,
+  transientV: (d) => offStateAt(d, d.spec.vinMaxV),
   turnOnV(d, vinV) {
     // Partial ZVS: Lm resonance brings the drain to ≈ Vin, leakage energy takes it lower (derived by energy balance).
     const coss = d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0;
@@ -68,9 +100,11 @@ export const activeClamp: ResetSchemeModel = {
     const prices = highSide ? d.prices.nMosfets : d.prices.pMosfets;
     const aux = selectMosfet(list, prices, d.switchStressV / s.voltageDerating, d.auxRmsA, d.poutW);
     if (aux >= 0) { d.auxSwitch = list[aux]!; d.auxPrice = prices[aux]!; } else d.fails.push('no-aux-switch');
-    // Cc from the ripple ratio ΔVc/Vc = (1 − D)²/(8·Lm·Cc·fs²) (derived).
-    d.clampCapF = snapUpIn(((1 - dMin) * (1 - dMin)) / (8 * d.lmH * CLAMP_RIPPLE_RATIO * s.fswHz * s.fswHz), E6);
-    chooseClampCap(d, d.clampCapF, d.clampV);
+    const cc = Math.max(clampCapacitanceF(d, s.vinMinV), clampCapacitanceF(d, s.vinMaxV));
+    if (Number.isFinite(cc) && cc > 0) {
+      d.clampCapF = snapUpIn(cc, E6);
+      chooseClampCap(d, d.clampCapF, d.clampV);
+    } else d.fails.push('no-clamp-part'); // the duty reaches 1: no clamp voltage to size for
     d.lowSideDrivers = highSide ? 1 : 2;
     d.highSideDrivers = highSide ? 1 : 0;
   },

@@ -18,6 +18,7 @@ const LEADS: Record<string, string> = {
   'no-output-inductor': 'No output inductor in our parts library fits',
   'no-clamp-part': 'No clamp or reset part in our parts library takes the reset energy',
   'unknown-part': 'A chosen part is not in our parts library',
+  'leakage-commutation': 'Transformer leakage uses up the duty cycle',
   'efficiency-below-target': 'Efficiency falls short of your target',
   'cost-above-target': 'The power-stage cost is above your target',
   'small-voltage-margin': 'Little voltage headroom on the primary switch',

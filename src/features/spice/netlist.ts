@@ -36,10 +36,19 @@ export function runTiming(p: NetlistPoint): { periodS: number; stopS: number; fr
   return { periodS, stopS: periods * periodS, fromS: (periods - 10) * periodS, maxStepS: periodS / 200 };
 }
 
+const leakageNote = {
+  none: 'no leakage: the output is higher by what the leakage would take',
+  primary: 'leakage as a series inductor in the clamp loop',
+  secondary: 'leakage referred to the secondary',
+} as const;
+
 function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string): string[] {
   const vc = p.duty / (1 - p.duty);
-  // ESR of Cc at 3 % of √(Lm/Cc): a lossless clamp never settles its slow Lm–Cc mode; real ones are damped by ESR and Rds(on).
-  const esr = 0.03 * Math.sqrt(p.lmH / (p.clampCapacitanceF ?? 1e-6));
+  const cc = p.clampCapacitanceF ?? 1e-6;
+  // A lossless clamp never settles its slow Lm–Cc mode (real ones are damped by ESR and Rds(on)): a parallel R–C branch
+  // (Rd = √(Lm/Cc), Cd = 4·Cc) damps it without sitting in the path of the fast leakage current at turn-off.
+  const rd = Math.sqrt(p.lmH / cc);
+  const damping = (node: string, ref: string, ic: number): string[] => [`RDC ${node} cd ${n(rd)}`, `CDC cd ${ref} ${n(4 * cc)} IC=${n(ic)}`];
   switch (p.scheme) {
     case 'tertiary-winding': {
       const r = p.resetTurnsRatio ?? 1;
@@ -60,17 +69,17 @@ function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string):
     case 'active-clamp':
       return p.activeClampVariant === 'high-side'
         ? [
-          '* Active clamp, high-side: clamp switch S2 and Cc across the primary, driven in the off time; Cc with a small damping ESR',
+          '* Active clamp, high-side: clamp switch S2 and Cc across the primary, driven in the off time; Cc with a damping R-C branch',
           'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
-          `CC cc ce ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.vinV * vc)}`,
-          `RCC ce in ${n(esr)}`,
+          `CC cc in ${n(cc)} IC=${n(p.vinV * vc)}`,
+          ...damping('cc', 'in', p.vinV * vc),
           gate2,
         ]
         : [
-          '* Active clamp, low-side: clamp switch S2 and Cc from the drain to ground, driven in the off time; Cc with a small damping ESR',
+          '* Active clamp, low-side: clamp switch S2 and Cc from the drain to ground, driven in the off time; Cc with a damping R-C branch',
           'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
-          `CC cc ce ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.vinV / (1 - p.duty))}`,
-          `RCC ce 0 ${n(esr)}`,
+          `CC cc 0 ${n(cc)} IC=${n(p.vinV / (1 - p.duty))}`,
+          ...damping('cc', '0', p.vinV / (1 - p.duty)),
           gate2,
         ];
     case 'two-switch':
@@ -95,9 +104,14 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
   const tr = t.periodS / 1000;
   const tOn = p.duty * t.periodS;
   const twoSwitch = p.scheme === 'two-switch';
-  // The RCD clamp is sized by the engine for the magnetizing and the leakage energy, so its leakage is drawn (in the clamp loop).
-  const leaky = p.scheme === 'rcd-clamp' && p.llkH > 0;
-  const top = twoSwitch ? 'dt' : leaky ? 'pa' : 'in';
+  // Leakage (the engine's Llk = leakageRatio·Lm), which takes volt-seconds from every on time. Where the reset network
+  // clamps the leakage energy (RCD, active clamp, two-switch) it sits in series with the primary inside the clamp loop.
+  // The tertiary winding, perfectly coupled here, returns leakage energy referred to the secondary (n²·Llk before D1) to
+  // the input, so the volt-seconds are simulated and the turn-off spike, which the engine books separately with its
+  // snubber, is not. In the resonant reset nothing would catch that energy, so the leakage is left out there.
+  const leakage = !(p.llkH > 0) || p.scheme === 'resonant-reset' ? 'none' : p.scheme === 'tertiary-winding' ? 'secondary' : 'primary';
+  const top = leakage === 'primary' ? 'pa' : twoSwitch ? 'dt' : 'in';
+  const secTop = leakage === 'secondary' ? 'sx' : 'sa';
   const bipolar = p.scheme === 'active-clamp' || p.scheme === 'resonant-reset';
   const gate2 = `VG2 g2 0 PULSE(0 1 ${n(tOn + tr)} ${n(tr)} ${n(tr)} ${n(t.periodS - tOn - 3 * tr)} ${n(t.periodS)})`;
   const rWinding = p.windingDropV / p.ioutA;
@@ -113,7 +127,7 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     `* Transformer: n = Ns/Np = ${n(p.turnsRatio)}, Lm = ${n(p.lmH)} H (primary); output L = ${n(p.outputInductanceH)} H, C = ${n(p.outputCapacitanceF)} F`,
     `* Engine ${ctx.engineVersion} at this input: switch peak ${n(p.expected.switchPeakV)} V, output ${n(p.expected.voutV)} V, inductor ripple ${n(p.expected.inductorRippleA)} A p-p`,
     `* Parts library: ${ctx.libraryName}`,
-    `* Idealised models: ideal switches, unity-coupled windings (${leaky ? 'leakage only as a series inductor in the clamp loop' : 'no leakage'}, no winding capacitance), diodes with a fixed`,
+    `* Idealised models: ideal switches, unity-coupled windings (${leakageNote[leakage]}, no winding capacitance), diodes with a fixed`,
     '* drop at full load and no recovery, lossless L and C. Early trade-off only; verify the final design on the bench.',
     ...safety,
     '.options TEMP=27 TNOM=27 METHOD=GEAR',
@@ -126,9 +140,15 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     ...(twoSwitch ? ['S1 in dt g1 0 SWI', 'DB1 dt in DIDEAL', 'S1B d 0 g1 0 SWI', 'DB1B 0 d DIDEAL'] : ['S1 d 0 g1 0 SWI', 'DB1 0 d DIDEAL']),
     '* Transformer (dots on the first node)',
     `LP ${top} d ${n(p.lmH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`,
-    `LS sa 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
+    `LS ${secTop} 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
     'K1 LP LS 1',
-    ...(leaky ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary, inside the clamp loop`, `LLK in pa ${n(p.llkH)}`] : []),
+    ...(leakage === 'primary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary, inside the clamp loop`,
+      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`] : []),
+    ...(leakage === 'secondary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H referred to the secondary (n²·Llk), in series with the forward rectifier`,
+      `LLKS sx sa ${n(p.llkH * p.turnsRatio * p.turnsRatio)} IC=${n(ilMinA)}`,
+      // 1 nF across D1 for its junction capacitance: without it the node between Llk and D1 has nothing to carry the
+      // last of the leakage current when D1 turns off, and the simulator's time step collapses.
+      'CJ1 sa sw 1e-9'] : []),
     ...resetNetwork(p, n, gate2),
     '* Forward and freewheeling rectifiers, output filter (winding/layout drop as a series resistance), load',
     'D1 sa sw DRECT', 'D2 0 sw DRECT',

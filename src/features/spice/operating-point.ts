@@ -54,7 +54,7 @@ export function netlistPoint(spec: NormalisedSpec, result: SchemeResult, vinCase
   if (!(d.magnetizingInductanceH > 0) || !(result.turnsRatio > 0) || !(result.outputInductanceH > 0) || !(result.outputCapacitanceF > 0)) {
     throw new RangeError(`${result.label}: the engine found no complete design for this requirement set, so there is no netlist to draw`);
   }
-  const duty = d.voltSecondsV / vinV;
+  const duty = vinCase === 'min' ? result.duty.atVinMin : vinCase === 'max' ? result.duty.atVinMax : result.duty.atVinNom;
   if (!(duty > 0 && duty < 1)) throw new RangeError(`${result.label}: duty at ${vinV} V would be ${duty.toFixed(3)}, outside (0, 1)`);
   const windingDropV = WINDING_DROP_SHARE * spec.voutV;
   const w = waveforms(spec, result.scheme, vinV, library);

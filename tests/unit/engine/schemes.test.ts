@@ -48,8 +48,12 @@ describe('switch peak voltage per scheme (steady state, worst over the range)', 
     const rcd = r['rcd-clamp']!;
     expect(rcd.clampCapacitorV).toBeCloseTo((1.2 * rcd.details.voltSecondsV) / (1 - rcd.dutyLimit), 9);
     expect(rcd.switchPeakV).toBeCloseTo(raw.vinMaxV + rcd.clampCapacitorV!, 9);
-    // Derived (volt-second balance): at the equal-stress duty Vds = Vin,min + Vin,max.
-    expect(r['active-clamp']!.switchPeakV).toBeCloseTo(raw.vinMinV + raw.vinMaxV, 6);
+    // Derived (volt-second balance on Lm + Llk, which Cc spans): Vds = Vin/(1 − D) with the switch duty, worst end of the range.
+    const ac = r['active-clamp']!;
+    const ends = [raw.vinMinV / (1 - ac.duty.atVinMin), raw.vinMaxV / (1 - ac.duty.atVinMax)];
+    expect(ac.switchPeakV).toBeCloseTo(Math.max(...ends), 9);
+    // Without leakage, at the equal-stress duty Vds = Vin,min + Vin,max exactly.
+    expect(byScheme({ ...raw, leakageRatio: 0 })['active-clamp']!.switchPeakV).toBeCloseTo(raw.vinMinV + raw.vinMaxV, 6);
     // Derived (half-sine volt-seconds): Vds = Vin,max + Vres,pk.
     const rr = r['resonant-reset']!;
     expect(rr.switchPeakV).toBeCloseTo(raw.vinMaxV + rr.details.resonantPeakV!, 9);
@@ -58,7 +62,10 @@ describe('switch peak voltage per scheme (steady state, worst over the range)', 
     const r = byScheme(SERVER);
     expect(r['two-switch']!.switchRatingV).toBeGreaterThanOrEqual(500);
     expect(r['two-switch']!.switchRatingV).toBeLessThanOrEqual(650);
-    expect(r['active-clamp']!.switchPeakV).toBeCloseTo(710, 6);
+    expect(byScheme({ ...SERVER, leakageRatio: 0 })['active-clamp']!.switchPeakV).toBeCloseTo(710, 6);
+    // With leakage, Vin,min still sits at the equal-stress duty; high line sees a little more leakage (larger IL,max).
+    expect(r['active-clamp']!.switchPeakV).toBeGreaterThanOrEqual(710 - 1e-6);
+    expect(r['active-clamp']!.switchPeakV).toBeLessThan(710 * 1.005);
     expect(r['tertiary-winding']!.switchStressV).toBeGreaterThan(820);
   });
   test('stress ≤ rating × derating for every feasible scheme (rule of thumb V_rating ≥ V_peak/0.8, common practice)', () => {
@@ -83,9 +90,10 @@ describe('rectifier reverse voltages', () => {
     expect(r['two-switch']!.rectifierReverseV.forward).toBeCloseTo(r['two-switch']!.turnsRatio * raw.vinMaxV, 9);
     // Derived (volt-second balance): n·Vcl.
     expect(r['rcd-clamp']!.rectifierReverseV.forward).toBeCloseTo(r['rcd-clamp']!.turnsRatio * r['rcd-clamp']!.clampCapacitorV!, 9);
-    // Derived (volt-second balance): n·Vin·D/(1 − D), largest at low line.
+    // Derived (volt-second balance): n·Vc = n·Vin·D/(1 − D), the larger of the two ends.
     const ac = r['active-clamp']!;
-    expect(ac.rectifierReverseV.forward).toBeCloseTo(ac.turnsRatio * raw.vinMinV * ac.duty.atVinMin / (1 - ac.duty.atVinMin), 9);
+    const vc = Math.max(raw.vinMinV * ac.duty.atVinMin / (1 - ac.duty.atVinMin), raw.vinMaxV * ac.duty.atVinMax / (1 - ac.duty.atVinMax));
+    expect(ac.rectifierReverseV.forward).toBeCloseTo(ac.turnsRatio * vc, 9);
     // Derived (half-sine volt-seconds): n·Vres,pk.
     const rr = r['resonant-reset']!;
     expect(rr.rectifierReverseV.forward).toBeCloseTo(rr.turnsRatio * rr.details.resonantPeakV!, 9);
@@ -106,8 +114,8 @@ describe('active clamp U-shape and equal-stress duty (derived: volt-second balan
     expect(activeClampOffStateV(36, k)).toBeCloseTo(111, 9);
     expect(activeClampOffStateV(75, k)).toBeCloseTo(111, 9);
   });
-  test('the line sweep is U-shaped: interior minimum below both ends', () => {
-    const pts = sweepVin(spec(TELECOM), 'active-clamp', 81);
+  test('the line sweep is U-shaped: interior minimum below both ends (equal ends without leakage)', () => {
+    const pts = sweepVin(spec({ ...TELECOM, leakageRatio: 0 }), 'active-clamp', 81);
     const vs = pts.map((p) => p.switchV);
     const min = Math.min(...vs);
     const at = vs.indexOf(min);
