@@ -48,7 +48,7 @@ function designFront(d: Design, model: ResetSchemeModel): void {
 }
 
 /** Passes after the first are repeated while c = Llk·IL,max·fs moves by more than this share (Llk depends on Np and the core). */
-export const LEAKAGE_SETTLE = 1e-3;
+export const LEAKAGE_SETTLE = 1e-2;
 
 function runStages(d: Design): Design {
   const spec = d.spec;

@@ -143,7 +143,10 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     `LS ${secTop} 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
     'K1 LP LS 1',
     ...(leakage === 'primary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary, inside the clamp loop`,
-      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`] : []),
+      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`,
+      // 100 pF of drain-node capacitance (switch output and winding) gives the leakage current a path for the instant the
+      // switch opens; without it the simulator's time step collapses at the clamp diode.
+      'CDN d 0 1e-10'] : []),
     ...(leakage === 'secondary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H referred to the secondary (n²·Llk), in series with the forward rectifier`,
       `LLKS sx sa ${n(p.llkH * p.turnsRatio * p.turnsRatio)} IC=${n(ilMinA)}`,
       // 1 nF across D1 for its junction capacitance: without it the node between Llk and D1 has nothing to carry the

@@ -58,7 +58,7 @@ describe('engine invariants over random valid specs (fast-check)', () => {
       }
     }), { numRuns: 100 });
   });
-  test('duty never exceeds its limit, nor the reset limit (derived; the leakage share of the duty converges to 0.1 %)', () => {
+  test('duty never exceeds its limit, nor the reset limit (derived; the leakage share of the duty settles to 1 %)', () => {
     fc.assert(fc.property(rawSpec, scheme, (raw, id) => {
       const d = designScheme(spec(raw), id, index);
       const leakageShare = d.dutyAtVinMin - d.kV / raw.vinMinV;
@@ -87,10 +87,12 @@ describe('engine invariants over random valid specs (fast-check)', () => {
       }
     }), { numRuns: 60 });
   });
-  test('raising vinMaxV never lowers switchPeakV (derived: every Vds(Vin) rises at high line)', () => {
+  // Without leakage: with it, K = (Vout + drops)/n also moves with the output inductor and core chosen for the wider range
+  // (through Llk·IL,max), so a wider range can shave a little off a clamp voltage designed from K.
+  test('raising vinMaxV never lowers switchPeakV without leakage (derived: every Vds(Vin) rises at high line)', () => {
     fc.assert(fc.property(rawSpec, scheme, fc.double({ min: 1, max: 1.5, noNaN: true }), (raw, id, up) => {
-      const higher = { ...raw, vinMaxV: Math.min(1500, raw.vinMaxV * up) };
-      const a = designScheme(spec(raw), id, index);
+      const higher = { ...raw, leakageRatio: 0, vinMaxV: Math.min(1500, raw.vinMaxV * up) };
+      const a = designScheme(spec({ ...raw, leakageRatio: 0 }), id, index);
       const b = designScheme(spec(higher), id, index);
       expect(b.switchPeakV).toBeGreaterThanOrEqual(a.switchPeakV * (1 - 1e-12));
     }), { numRuns: 300 });
