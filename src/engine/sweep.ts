@@ -16,7 +16,7 @@ export interface VinSweepPoint {
 }
 
 /**
- * Duty D = K/Vin and steady switch voltage across the input range for the charts
+ * Switch duty (K/Vin plus the leakage share, design/duty.ts) and steady switch voltage across the input range for the charts
  * (`points` evenly spaced from vinMinV to vinMaxV, at least 2). Formulas per scheme (derived by volt-second balance).
  */
 export function sweepVin(spec: NormalisedSpec, scheme: SchemeId, points = 41, library: PartsLibrary = demoPartsLibrary): VinSweepPoint[] {

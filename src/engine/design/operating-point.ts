@@ -16,7 +16,7 @@ export function zeroLosses(): LossesW {
 
 /**
  * Loss breakdown at an input voltage and load fraction, written into `out` (a new record when
- * omitted). Duty follows D = K/Vin; the inductor is assumed to stay in continuous conduction.
+ * omitted). Conduction uses the effective duty K/Vin and the ripple the leakage leaves (design/duty.ts); the inductor is assumed to stay in continuous conduction.
  * Terms: conduction Irms²·R, linear V–I overlap and ½·Co(er)·V² switching (Mohan, Undeland &
  * Robbins, 3rd ed., ch. 2 [M]; Erickson & Maksimović §4.3 [M]), gate charge Qg·Vgs·fs, rectifier
  * VF·Io or Irms²·R plus recovery, core (Steinmetz) and copper loss, inductor DCR (common practice).

@@ -106,7 +106,7 @@ export default function CompareCharts({ comparison }: Props) {
       <ChartCard
         name="duty"
         title="Duty across the input range"
-        caption={`Duty in regulation, D = K / Vin, over ${range}; thin dotted line: the scheme's duty limit (reset or controller).`}
+        caption={`Switch duty in regulation over ${range} (volt-seconds K/Vin plus the share the leakage inductance takes); thin dotted line: the scheme's duty limit (reset or controller).`}
         chart={<LineChartBox name="duty" series={duty} axes={axes.duty} ariaLabel={`Duty against input voltage for ${comparison.results.length} schemes`} />}
       >
         <LineLegend entries={duty.legend} />
