@@ -92,5 +92,5 @@ describe('a full shortlist round in the browser', () => {
     expect(await sales.locator('[data-history] li').count()).toBeGreaterThanOrEqual(8);
     await shot(sales, 'shortlist-decided-sales');
     await sales.context().close();
-  });
+  }, 120_000); // four signed-in browsers in turn: about 18 s alone, well over 30 s while the rest of the suite runs beside it
 });
