@@ -77,12 +77,16 @@ export function designConversion(d: Design, model: ResetSchemeModel): void {
   if (d.dutyLimit > d.resetDutyLimit + 1e-12) d.fails.push('duty-limit-above-reset');
   d.windingDropV = WINDING_DROP_SHARE * s.voutV;
   for (let pass = 0; pass < 2; pass++) {
+    const used = d.rectSr ?? d.rectDiode;
+    const usedQty = d.rectQty;
     d.rectifierDropV = rectifierDrop(d);
     d.dropsV = d.rectifierDropV + d.windingDropV;
     d.turnsRatio = ov?.turnsRatio ?? ratioAtDutyLimit(d);
     d.kV = (s.voutV + d.dropsV) / d.turnsRatio;
     model.prepare(d);
     chooseRectifier(d, model);
+    // The drop came from the part just chosen again (a later leakage pass): a second round would repeat this one.
+    if (used !== null && (d.rectSr ?? d.rectDiode) === used && d.rectQty === usedQty) break;
   }
   if (!d.rectSr && !d.rectDiode) d.fails.push('no-rectifier');
 }
