@@ -51,6 +51,12 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
     start += nf * plan.dutyLimits[si]!.length * plan.mainSwitches[si]!.length * nr * nc;
   }
   const base = { ...spec };
+  // One override record per scheme, rewritten per point (the engine keeps no reference past the call): a sweep
+  // allocates nothing per point.
+  const partIds: NonNullable<SchemeOverride['partIds']> = {};
+  const override: SchemeOverride = { dutyLimit: 0, partIds };
+  const overrides: Record<string, SchemeOverride> = {};
+  base.overrides = overrides;
   let k = 0;
   let si = 0;
   for (const [from, to] of ranges) {
@@ -69,12 +75,13 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
       const fi = (idx - di) / nd;
       if (fi >= nf) throw new RangeError(`plan index ${g} lies beyond the plan's ${plan.total} points`);
       const fswHz = plan.fswHz[fi]!, dutyLimit = plan.dutyLimits[si]![di]!;
-      const partIds: NonNullable<SchemeOverride['partIds']> = {};
-      if (mains[mi]) partIds.mainSwitch = mains[mi]!;
-      if (plan.rectifiers[ri]) partIds.rectifier = plan.rectifiers[ri]!;
-      if (plan.cores[ci]) partIds.core = plan.cores[ci]!;
+      partIds.mainSwitch = mains[mi] ?? undefined;
+      partIds.rectifier = plan.rectifiers[ri] ?? undefined;
+      partIds.core = plan.cores[ci] ?? undefined;
+      override.dutyLimit = dutyLimit;
+      for (const key in overrides) if (key !== scheme) delete overrides[key];
+      overrides[scheme] = override;
       base.fswHz = fswHz;
-      base.overrides = { [scheme]: { dutyLimit, partIds } };
       const r = evaluateLean(base, scheme, library);
       const o = k * STRIDE;
       out[o] = si; out[o + 1] = fswHz; out[o + 2] = dutyLimit; out[o + 3] = r.turnsRatio;
