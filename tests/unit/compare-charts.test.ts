@@ -1,7 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
-import { evaluate, sweepVin, waveforms, type Comparison } from '../../src/engine/index';
+import { demoPartsLibrary, evaluate, sweepVin, waveforms, type Comparison } from '../../src/engine/index';
 import { SCHEME_STYLES } from '../../src/lib/scheme-style';
 import { formatDuty, formatMoney, formatVolts, formatWatts } from '../../src/features/compare/charts/format';
 import { stackColours } from '../../src/features/compare/charts/palette';
@@ -19,7 +19,7 @@ test('the three demo examples are found', () => {
 
 describe.each(comparisons)('%s', (_name, c) => {
   test('stress series: one curve per scheme in the scheme style, equal to sweepVin, plus its rating line', () => {
-    const s = buildStressSeries(c);
+    const s = buildStressSeries(c, buildSweeps(c, demoPartsLibrary));
     expect(s.lines.map((d) => d.scheme)).toEqual(c.results.map((r) => r.scheme));
     for (const [k, r] of c.results.entries()) {
       const line = s.lines[k]!;
@@ -50,7 +50,7 @@ describe.each(comparisons)('%s', (_name, c) => {
   });
 
   test('duty series: the switch duty from sweepVin, limit lines at dutyLimit, duty at Vin,min/max as in the result', () => {
-    const d = buildDutySeries(c);
+    const d = buildDutySeries(c, buildSweeps(c, demoPartsLibrary));
     for (const [k, r] of c.results.entries()) {
       const line = d.lines[k]!;
       expect(line.data[0]!.y).toBeCloseTo(r.duty.atVinMin, 12);
@@ -61,6 +61,20 @@ describe.each(comparisons)('%s', (_name, c) => {
     }
     expect(d.yMax).toBeLessThanOrEqual(1);
     expect(d.yMax).toBeGreaterThanOrEqual(Math.max(...c.results.map((r) => r.dutyLimit)));
+  });
+
+  test('the curves are designed with the library the comparison was evaluated against, not the demo library', () => {
+    // Cores with three times the inductance factor: Lm and Llk change, and with them the leakage share of the duty.
+    const library = { ...demoPartsLibrary, cores: demoPartsLibrary.cores.map((core) => ({ ...core, alH: 3 * core.alH })) };
+    const own = evaluate(c.input, library);
+    const d = buildDutySeries(own, buildSweeps(own, library));
+    for (const [k, r] of own.results.entries()) {
+      expect(d.lines[k]!.data[0]!.y).toBeCloseTo(r.duty.atVinMin, 12);
+      expect(d.lines[k]!.data.at(-1)!.y).toBeCloseTo(r.duty.atVinMax, 12);
+    }
+    // The demo library would draw other designs: the check above can tell them apart.
+    const demo = buildDutySeries(own, buildSweeps(own, demoPartsLibrary));
+    expect(own.results.some((r, k) => Math.abs(demo.lines[k]!.data.at(-1)!.y - r.duty.atVinMax) > 1e-6)).toBe(true);
   });
 
   test('loss stacks: one dataset per category, each scheme stack sums to lossesW.total', () => {
@@ -91,7 +105,7 @@ describe.each(comparisons)('%s', (_name, c) => {
 
   test('waveforms: four panels from the engine, time in µs over two periods', () => {
     for (const r of c.results) {
-      const w = buildWaveSeries(c, r.scheme);
+      const w = buildWaveSeries(c, r.scheme, demoPartsLibrary);
       const engine = waveforms(c.input, r.scheme);
       expect(w.periodUs).toBeCloseTo(1e6 / c.input.fswHz, 9);
       expect(w.drain.lines[0]!.data.map((p) => p.y)).toEqual(engine.drainV.map((p) => p.value));
@@ -119,16 +133,16 @@ describe.each(comparisons)('%s', (_name, c) => {
   });
 
   test('building every chart for five schemes is fast enough for live typing', () => {
-    buildSweeps(c); // warm up
+    buildSweeps(c, demoPartsLibrary); // warm up
     const t0 = performance.now();
     const runs = 20;
     for (let i = 0; i < runs; i++) {
-      const sweeps = buildSweeps(c);
+      const sweeps = buildSweeps(c, demoPartsLibrary);
       buildStressSeries(c, sweeps);
       buildDutySeries(c, sweeps);
       buildLossStacks(c);
       buildCostStacks(c);
-      buildWaveSeries(c, c.ranking[0]!);
+      buildWaveSeries(c, c.ranking[0]!, demoPartsLibrary);
     }
     // Generous bound for slow CI machines; the data part is a small share of the 20 ms budget.
     expect((performance.now() - t0) / runs).toBeLessThan(15);

@@ -1,6 +1,7 @@
 import { useStore } from '@nanostores/react';
 import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { $evaluation } from '../../stores/evaluation';
+import { $library } from '../../stores/library';
 import { markRendered } from '../../lib/perf';
 import { ensureLoaded } from './init';
 
@@ -11,6 +12,7 @@ const CompareCharts = lazy(() => import('./charts/CompareCharts'));
 export default function ChartsPanel() {
   ensureLoaded();
   const { comparison, current } = useStore($evaluation);
+  const library = useStore($library);
   const anchor = useRef<HTMLDivElement>(null);
   const [near, setNear] = useState(false);
   useEffect(() => {
@@ -20,11 +22,11 @@ export default function ChartsPanel() {
     return () => observer.disconnect();
   }, [near]);
   useEffect(() => markRendered('charts'), [comparison]);
-  if (!comparison) return null;
+  if (!comparison || !library) return null;
   const waiting = <p className="card p-6 text-sm text-muted">Drawing the charts…</p>;
   return (
     <div ref={anchor} className={current ? '' : 'opacity-55'} data-charts>
-      {near ? <Suspense fallback={waiting}><CompareCharts comparison={comparison} /></Suspense> : waiting}
+      {near ? <Suspense fallback={waiting}><CompareCharts comparison={comparison} library={library} /></Suspense> : waiting}
     </div>
   );
 }

@@ -1,7 +1,7 @@
 import '../../../components/charts/register';
 import { useMemo, useRef } from 'react';
 import { Bar } from 'react-chartjs-2';
-import type { Comparison } from '../../../engine/index';
+import type { Comparison, PartsLibrary } from '../../../engine/index';
 import { ChartCard } from './ChartCard';
 import { formatDuty, formatMoney, formatVolts, formatWatts } from './format';
 import { LineChartBox } from './LineChartBox';
@@ -17,6 +17,8 @@ import { WaveformCard } from './WaveformCard';
 
 interface Props {
   comparison: Comparison;
+  /** The parts library the comparison was evaluated against (the curves and waveforms redesign with it). */
+  library: PartsLibrary;
 }
 
 const vinTick = (x: number) => String(Number(x.toPrecision(4)));
@@ -28,15 +30,15 @@ installPrintSharpness();
  * breakdowns, and idealised waveforms per scheme. Everything is rebuilt from `comparison` only
  * (memoised), with animation off; a chart whose data an edit leaves unchanged is not updated.
  */
-export default function CompareCharts({ comparison }: Props) {
+export default function CompareCharts({ comparison, library }: Props) {
   const built = useMemo(() => {
     try {
-      const sweeps = buildSweeps(comparison);
+      const sweeps = buildSweeps(comparison, library);
       return { stress: buildStressSeries(comparison, sweeps), duty: buildDutySeries(comparison, sweeps), loss: buildLossStacks(comparison), cost: buildCostStacks(comparison) };
     } catch (error) {
       return error instanceof Error ? error : new Error(String(error));
     }
-  }, [comparison]);
+  }, [comparison, library]);
   const ok = built instanceof Error ? null : built;
   // Each chart keeps its data while an edit leaves it unchanged (a weight, Vin,nom for the sweeps…).
   const stress = useStable(ok?.stress ?? null);
@@ -125,7 +127,7 @@ export default function CompareCharts({ comparison }: Props) {
         height={280}
         chart={<Bar data={cost} options={costOptions} plugins={costPlugins} role="img" aria-label={`BOM cost breakdown per scheme in ${cost.currency}`} />}
       />
-      <WaveformCard comparison={comparison} />
+      <WaveformCard comparison={comparison} library={library} />
     </div>
   );
 }

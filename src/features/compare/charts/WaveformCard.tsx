@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import type { Comparison, SchemeId } from '../../../engine/index';
+import type { Comparison, PartsLibrary, SchemeId } from '../../../engine/index';
 import { ChartCard } from './ChartCard';
 import { formatAmps, formatMicroseconds, formatVolts } from './format';
 import { LineChartBox } from './LineChartBox';
@@ -15,7 +15,7 @@ const amps = (yTitle: string): LineAxes => ({ ...time, yTitle, yTick: (y) => Str
 const AXES = { drain: volts('Switch voltage (V)'), currents: amps('Primary current (A)'), secondary: volts('Secondary voltage (V)'), inductor: amps('Inductor current (A)') };
 
 /** Idealised waveforms of one scheme at a time (two switching periods), with a scheme picker. */
-export function WaveformCard({ comparison }: { comparison: Comparison }) {
+export function WaveformCard({ comparison, library }: { comparison: Comparison; library: PartsLibrary }) {
   // Kept while the schemes and their names stay the same, so the memoised picker is not re-rendered.
   const options = useStable(useMemo(() => comparison.results.map((r) => ({ scheme: r.scheme, label: r.label })), [comparison]));
   const [picked, setPicked] = useState<SchemeId | null>(null);
@@ -24,11 +24,11 @@ export function WaveformCard({ comparison }: { comparison: Comparison }) {
   const waves = useMemo(() => {
     if (!scheme) return null;
     try {
-      return buildWaveSeries(comparison, scheme);
+      return buildWaveSeries(comparison, scheme, library);
     } catch (error) {
       return error instanceof Error ? error : new Error(String(error));
     }
-  }, [comparison, scheme]);
+  }, [comparison, scheme, library]);
   const ok = waves instanceof Error ? null : waves;
   // Each panel keeps its series while an edit leaves it unchanged, so its chart is not updated.
   const stable = { drain: useStable(ok?.drain ?? null), currents: useStable(ok?.currents ?? null), secondary: useStable(ok?.secondary ?? null), inductor: useStable(ok?.inductor ?? null) };

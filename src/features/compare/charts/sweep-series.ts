@@ -1,4 +1,4 @@
-import { sweepVin, type Comparison, type SchemeResult, type VinSweepPoint } from '../../../engine/index';
+import { sweepVin, type Comparison, type PartsLibrary, type SchemeResult, type VinSweepPoint } from '../../../engine/index';
 import { SCHEME_STYLES } from '../../../lib/scheme-style';
 import { formatDuty, formatVolts } from './format';
 import { markerDataset } from './markers';
@@ -17,9 +17,12 @@ export interface SchemeSweep {
   points: VinSweepPoint[];
 }
 
-/** Sweeps every scheme of the comparison across Vin,min…Vin,max (engine `sweepVin`). */
-export function buildSweeps(comparison: Comparison, points = SWEEP_POINTS): SchemeSweep[] {
-  return comparison.results.map((result) => ({ result, points: sweepVin(comparison.input, result.scheme, points) }));
+/**
+ * Sweeps every scheme of the comparison across Vin,min…Vin,max (engine `sweepVin`), with the parts library the
+ * comparison was evaluated against, so the curves are the same designs as the cards.
+ */
+export function buildSweeps(comparison: Comparison, library: PartsLibrary, points = SWEEP_POINTS): SchemeSweep[] {
+  return comparison.results.map((result) => ({ result, points: sweepVin(comparison.input, result.scheme, points, library) }));
 }
 
 /** Marker radius per point: `radius` on every `every`th point, shifted by `slot`, 0 elsewhere. */
@@ -86,7 +89,7 @@ function ranges(sweeps: SchemeSweep[], ys: number[]): Pick<LineSeries, 'xMin' | 
  * plus each scheme's chosen voltage rating as a thin dotted line. For two-switch this is the
  * voltage across each of the two switches.
  */
-export function buildStressSeries(comparison: Comparison, sweeps: SchemeSweep[] = buildSweeps(comparison)): LineSeries {
+export function buildStressSeries(comparison: Comparison, sweeps: SchemeSweep[]): LineSeries {
   const lines = sweeps.map((s) => curve(s, (p) => p.switchV));
   const references: LineDataset[] = [];
   const legend: LegendEntry[] = [];
@@ -105,7 +108,7 @@ export function buildStressSeries(comparison: Comparison, sweeps: SchemeSweep[] 
 }
 
 /** Duty D = K/Vin against Vin for every scheme, with each scheme's duty limit as a thin dotted line. */
-export function buildDutySeries(comparison: Comparison, sweeps: SchemeSweep[] = buildSweeps(comparison)): LineSeries {
+export function buildDutySeries(comparison: Comparison, sweeps: SchemeSweep[]): LineSeries {
   const lines = sweeps.map((s) => curve(s, (p) => p.duty));
   const references = sweeps.map((s) => reference(s, s.result.dutyLimit, `${s.result.label} duty limit`));
   const legend = sweeps.map((s) => legendEntry(s, `limit ${formatDuty(s.result.dutyLimit)}`));

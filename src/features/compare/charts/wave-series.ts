@@ -1,4 +1,4 @@
-import { waveforms, type Comparison, type SchemeId, type WavePoint } from '../../../engine/index';
+import { waveforms, type Comparison, type PartsLibrary, type SchemeId, type WavePoint } from '../../../engine/index';
 import { SCHEME_STYLES } from '../../../lib/scheme-style';
 import { INK, NEUTRAL } from './palette';
 import { REFERENCE_DASH } from './sweep-series';
@@ -95,9 +95,9 @@ function currentSeries(primary: LineDataset, magnetizing: LineDataset, legend: L
   };
 }
 
-/** Engine waveforms of one scheme (two switching periods at Vin,nom) shaped for the four charts. */
-export function buildWaveSeries(comparison: Comparison, scheme: SchemeId): WaveSeries {
-  const w = waveforms(comparison.input, scheme);
+/** Engine waveforms of one scheme (two switching periods at Vin,nom), designed with the comparison's parts library, shaped for the four charts. */
+export function buildWaveSeries(comparison: Comparison, scheme: SchemeId, library: PartsLibrary): WaveSeries {
+  const w = waveforms(comparison.input, scheme, undefined, library);
   const style = SCHEME_STYLES[scheme];
   const periodUs = w.periodS * 1e6;
   const own = (label: string, points: WavePoint[]) => trace(scheme, label, toXY(points), style.color, [], style.marker);
