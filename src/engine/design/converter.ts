@@ -1,6 +1,6 @@
 import { CAP_TOLERANCE, RDS_HOT_FACTOR, WINDING_DROP_SHARE } from '../assumptions';
 import { E12, E6, snapUpIn } from '../eseries';
-import { capacitanceForRippleF, inductanceForRippleH } from '../filter';
+import { capacitanceForRippleF, inductanceForRippleH, inductorRippleA } from '../filter';
 import type { MosfetPart, RectifierPart } from '../parts/types';
 import { unitPriceAt } from '../parts/index-library';
 import { picked, selectCapacitor, selectInductor, selectMosfet, selectRectifier } from '../parts/select';
@@ -117,7 +117,10 @@ export function designFilter(d: Design): void {
   const snapped = snapUpIn(inductanceForRippleH(voPlusDrop, dMin, target, s.fswHz), E12);
   // A later pass never steps L down (see designMagnetics: the passes must settle, not swing).
   d.outputInductanceH = d.leakageCoefficientV > 0 && d.outputInductanceH > snapped ? d.outputInductanceH : snapped;
-  d.rippleA = rippleAtA(d, s.vinMaxV);
+  // An overridden turns ratio can ask for more volt-seconds than high line gives: the ripple at the capped duty keeps
+  // the filter defined, and the duty check flags the design.
+  const atMax = rippleAtA(d, s.vinMaxV);
+  d.rippleA = atMax > 0 ? atMax : inductorRippleA(voPlusDrop, dMin, d.outputInductanceH, s.fswHz);
   // Half the ripple budget to capacitance, half to ESR (common practice).
   const cMin = capacitanceForRippleF(d.rippleA, s.fswHz, s.voutRippleV / 2);
   d.outputCapacitanceF = snapUpIn(cMin / (1 - CAP_TOLERANCE), E6);

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
 import { LEAKAGE_SETTLE, designScheme } from '../../../src/engine/design/pipeline';
 import { evaluateNormalised } from '../../../src/engine/evaluate';
+import { parseSpecInput } from '../../../src/schemas/spec';
 import { indexLibrary } from '../../../src/engine/parts/index-library';
 import { demoPartsLibrary } from '../../../src/engine/parts/demo-library';
 import { SCHEME_IDS } from '../../../src/engine/scheme-ids';
@@ -96,6 +97,21 @@ describe('engine invariants over random valid specs (fast-check)', () => {
       const b = designScheme(spec(higher), id, index);
       expect(b.switchPeakV).toBeGreaterThanOrEqual(a.switchPeakV * (1 - 1e-12));
     }), { numRuns: 300 });
+  });
+  test('every valid spec evaluates without throwing, overrides included (turns ratio, duty limit, turns, forced parts)', () => {
+    const ids = (list: { id: string }[]) => fc.constantFrom(...list.map((p) => p.id));
+    const L = demoPartsLibrary;
+    const override = fc.record({
+      dutyLimit: fc.double({ min: 0.05, max: 0.95, noNaN: true }),
+      turnsRatio: fc.double({ min: 0.01, max: 20, noNaN: true }),
+      turnsPrimary: fc.integer({ min: 1, max: 200 }),
+      partIds: fc.record({ mainSwitch: ids(L.mosfets), rectifier: fc.oneof(ids(L.rectifiers), ids(L.srMosfets)), core: ids(L.cores) }, { requiredKeys: [] }),
+    }, { requiredKeys: [] });
+    fc.assert(fc.property(rawSpec, scheme, override, fc.double({ min: 0, max: 0.2, noNaN: true }), (raw, id, ov, leakageRatio) => {
+      const parsed = parseSpecInput({ ...raw, leakageRatio, overrides: { [id]: ov } });
+      expect(parsed.ok).toBe(true);
+      if (parsed.ok) expect(() => evaluateNormalised(parsed.value, L)).not.toThrow();
+    }), { numRuns: 400 });
   });
   test('the same input gives the same output (determinism)', () => {
     fc.assert(fc.property(rawSpec, (raw) => {
