@@ -23,7 +23,7 @@ const rawSpec = fc.record({
 }).map((r) => {
   const vinMaxV = Math.min(1500, r.vinMinV * r.ratio);
   return {
-    vinMinV: r.vinMinV, vinMaxV, vinNomV: r.vinMinV + r.nomShare * (vinMaxV - r.vinMinV),
+    vinMinV: r.vinMinV, vinMaxV, vinNomV: Math.min(vinMaxV, r.vinMinV + r.nomShare * (vinMaxV - r.vinMinV)),
     voutV: r.voutV, ioutA: r.poutW / r.voutV, fswHz: r.fswHz, rectifier: r.rectifier, rippleRatio: r.rippleRatio,
   };
 });
