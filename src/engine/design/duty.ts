@@ -21,6 +21,8 @@ function magnetizingSwingA(d: Design): number {
 }
 
 const hasLeakage = (d: Design): boolean => d.llkH > 0 && d.lmH > 0;
+/** Llk and the output inductor are both designed (the first pass has neither). */
+const designed = (d: Design): boolean => hasLeakage(d) && d.outputInductanceH > 0;
 
 /**
  * Peak-to-peak inductor ripple at an input voltage. The inductor charges for D − tc·fs at
@@ -38,7 +40,7 @@ export function rippleAtA(d: Design, vinV: number): number {
 
 /** Volt-seconds × fs taken by the leakage at an input voltage, Llk·fs·(n·IL,max + ΔIm) (V; 0 before Llk is known). */
 export function leakageVoltSecondsV(d: Design, vinV: number): number {
-  if (!hasLeakage(d) || !(d.outputInductanceH > 0)) return 0;
+  if (!designed(d)) return 0;
   const ilMax = d.spec.ioutA + rippleAtA(d, vinV) / 2;
   return d.llkH * d.spec.fswHz * (d.turnsRatio * ilMax + magnetizingSwingA(d));
 }
@@ -50,14 +52,14 @@ export function switchDutyAt(d: Design, vinV: number): number {
 
 /** Share of the period in which the leakage commutates the rectifiers, tc·fs = n·Llk·IL,min·fs/Vin (derived). */
 export function commutationDutyAt(d: Design, vinV: number): number {
-  if (!hasLeakage(d) || !(d.outputInductanceH > 0)) return 0;
+  if (!designed(d)) return 0;
   const ilMin = Math.max(0, d.spec.ioutA - rippleAtA(d, vinV) / 2);
   return (d.turnsRatio * d.llkH * ilMin * d.spec.fswHz) / vinV;
 }
 
 /** c = Llk·IL,max·fs at an input voltage (V), the coefficient of n² in the turns-ratio equation; 0 before Llk is known. */
 export function leakageCoefficientV(d: Design, vinV: number): number {
-  if (!hasLeakage(d) || !(d.outputInductanceH > 0)) return 0;
+  if (!designed(d)) return 0;
   return d.llkH * (d.spec.ioutA + rippleAtA(d, vinV) / 2) * d.spec.fswHz;
 }
 

@@ -68,9 +68,10 @@ function runStages(d: Design): Design {
     designFront(d, model);
   }
   setSwitchDuties(d);
-  d.leakageDropV = d.turnsRatio * leakageVoltSecondsV(d, spec.vinMinV);
+  const leakageAtMinV = leakageVoltSecondsV(d, spec.vinMinV);
+  d.leakageDropV = d.turnsRatio * leakageAtMinV;
   // Slack only for the unsettled share of the leakage term.
-  const slack = (LEAKAGE_SETTLE * leakageVoltSecondsV(d, spec.vinMinV)) / spec.vinMinV + 1e-9;
+  const slack = (LEAKAGE_SETTLE * leakageAtMinV) / spec.vinMinV + 1e-9;
   if (d.dutyAtVinMin > d.dutyLimit + slack) {
     // No turns ratio at all reaches the output once the leakage takes its share: say so rather than "raise n".
     const c = leakageCoefficientV(d, spec.vinMinV);

@@ -57,6 +57,7 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
   const override: SchemeOverride = { dutyLimit: 0, partIds };
   const overrides: Record<string, SchemeOverride> = {};
   base.overrides = overrides;
+  let overridden = '';
   let k = 0;
   let si = 0;
   for (const [from, to] of ranges) {
@@ -79,8 +80,11 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
       partIds.rectifier = plan.rectifiers[ri] ?? undefined;
       partIds.core = plan.cores[ci] ?? undefined;
       override.dutyLimit = dutyLimit;
-      for (const key in overrides) if (key !== scheme) delete overrides[key];
-      overrides[scheme] = override;
+      if (overridden !== scheme) {
+        delete overrides[overridden];
+        overrides[scheme] = override;
+        overridden = scheme;
+      }
       base.fswHz = fswHz;
       const r = evaluateLean(base, scheme, library);
       const o = k * STRIDE;
