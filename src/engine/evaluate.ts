@@ -1,12 +1,12 @@
 import { parseSpecInput, type NormalisedSpec, type SpecError } from '../schemas/spec';
 import { visitParts } from './design/bom';
 import { efficiencyOf, lossesAt, zeroLosses } from './design/operating-point';
-import { designSchemeInto } from './design/pipeline';
-import { newDesign } from './design/record';
+import { designBack, designFront, designSchemeInto } from './design/pipeline';
+import { copyDesign, newDesign, resetDesign } from './design/record';
 import { copySpec, newSpecView } from './design/spec-view';
 import type { Design } from './design/types';
 import { findingsOf } from './feasibility';
-import { indexLibrary } from './parts/index-library';
+import { indexLibrary, type LibraryIndex } from './parts/index-library';
 import { demoPartsLibrary } from './parts/demo-library';
 import type { PartsLibrary } from './parts/types';
 import { schemeModel } from './registry';
@@ -116,12 +116,56 @@ export function evaluateLean(spec: NormalisedSpec, scheme: SchemeId, library: Pa
   const index = indexLibrary(library);
   const view = copySpec(leanSpec, spec);
   leanScratch ??= newDesign(view, scheme, index);
-  const d = designSchemeInto(leanScratch, view, scheme, index);
+  return leanOf(designSchemeInto(leanScratch, view, scheme, index));
+}
+
+function leanOf(d: Design): LeanResult {
   return {
-    scheme, feasible: d.feasible, turnsRatio: d.turnsRatio, dutyLimit: d.dutyLimit,
+    scheme: d.scheme, feasible: d.feasible, turnsRatio: d.turnsRatio, dutyLimit: d.dutyLimit,
     dutyAtVinMin: d.dutyAtVinMin, dutyAtVinMax: d.dutyAtVinMax, switchPeakV: d.switchPeakV,
     switchStressV: d.switchStressV, switchRatingV: d.switchRatingV, rectifierForwardV: d.rectForwardV,
     rectifierFreewheelV: d.rectFreewheelV, lossW: d.lossesW.total, efficiency: d.efficiency,
     bomCost: d.bomCost, partCount: d.partCount, score: d.score,
   };
+}
+
+/**
+ * `evaluateLean` for a grid walk, in which many points share the stages before the main switch is chosen
+ * (conversion, filter, magnetics with the leakage passes, the duty check: they never read the main switch).
+ * The caller names, per point, a `slot` and a `key` that together stand for everything those stages read
+ * (scheme, spec, duty limit and the other forced parts); a point whose slot holds the same key starts from the
+ * kept state instead of computing it again. Results equal `evaluateLean`'s to the last bit (tests/unit/sweep.test.ts).
+ */
+export class LeanSweeper {
+  private readonly index: LibraryIndex;
+  private readonly view = newSpecView();
+  private readonly keys: Float64Array;
+  private readonly kept: (Design | undefined)[];
+  private scratch: Design | null = null;
+
+  /** `slots`: how many front states to keep (the caller's slot numbers run from 0 to slots − 1). */
+  constructor(library: PartsLibrary, slots: number) {
+    this.index = indexLibrary(library);
+    this.keys = new Float64Array(slots).fill(NaN);
+    this.kept = new Array<Design | undefined>(slots);
+  }
+
+  // A method on the prototype, not a closure per sweeper: every sweep then calls one and the same function,
+  // and the JIT's code for the caller stays valid from one sweep to the next.
+  evaluate(spec: NormalisedSpec, scheme: SchemeId, slot: number, key: number): LeanResult {
+    const view = copySpec(this.view, spec);
+    const index = this.index;
+    const d = (this.scratch ??= newDesign(view, scheme, index));
+    const held = this.kept[slot];
+    if (held && this.keys[slot] === key && held.scheme === scheme) {
+      copyDesign(d, held);
+      d.spec = view;
+      d.ov = view.overrides[scheme];
+    } else {
+      designFront(resetDesign(d, view, scheme, index));
+      this.kept[slot] = copyDesign(held ?? newDesign(view, scheme, index), d);
+      this.keys[slot] = key;
+    }
+    return leanOf(designBack(d));
+  }
 }

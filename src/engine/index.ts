@@ -4,7 +4,7 @@
  */
 export { ENGINE_VERSION } from './version';
 export { SCHEME_IDS, SCHEME_LABELS, type SchemeId } from './scheme-ids';
-export { evaluate, evaluateNormalised, evaluateLean, rankResults, SpecValidationError } from './evaluate';
+export { evaluate, evaluateNormalised, evaluateLean, LeanSweeper, rankResults, SpecValidationError } from './evaluate';
 export { waveforms, waveformsOf, type Waveforms, type WavePoint } from './waveforms';
 export { sweepVin, type VinSweepPoint } from './sweep';
 export { demoPartsLibrary } from './parts/demo-library';

@@ -41,6 +41,31 @@ describe('sweep plan', () => {
     });
   });
 
+  test.each([
+    ['the 18–32 V set', spec],
+    ['a synchronous-rectifier brick', parseSpecInput({ vinMinV: 36, vinNomV: 48, vinMaxV: 75, voutV: 12, ioutA: 12.5, fswHz: 250e3, rectifier: 'synchronous' })],
+  ])('every point of %s equals evaluateLean of that point alone (points sharing the front stages lose nothing)', (_, s) => {
+    const one = 'ok' in s ? (s.ok ? s.value : null) : s;
+    if (!one) throw new Error('spec');
+    const plan = planSweep(one, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 2, dutySteps: 2 });
+    expect(plan.mainSwitches.some((m) => m.length > 1)).toBe(true);
+    const data = new Float64Array(plan.total * STRIDE);
+    runSweep(one, demoPartsLibrary, plan, data);
+    let shared = 0;
+    for (let g = 0; g < plan.total; g++) {
+      const o = g * STRIDE;
+      const s = data[o + F.scheme]!, main = data[o + F.main]!, rect = data[o + F.rect]!, core = data[o + F.core]!;
+      const scheme = plan.schemes[s]!;
+      const partIds = { mainSwitch: main >= 0 ? plan.mainSwitches[s]![main]! : undefined, rectifier: rect >= 0 ? plan.rectifiers[rect]! : undefined, core: core >= 0 ? plan.cores[core]! : undefined };
+      const alone = evaluateLean({ ...one, fswHz: data[o + F.fswHz]!, overrides: { [scheme]: { dutyLimit: data[o + F.dutyLimit]!, partIds } } }, scheme, demoPartsLibrary);
+      if (main > 0) shared++;
+      // Bit for bit, not close: the kept state is the same state.
+      expect([data[o + F.turnsRatio], data[o + F.cost], data[o + F.lossW], data[o + F.efficiency], data[o + F.feasible]]).toEqual(
+        [alone.turnsRatio, alone.bomCost, alone.lossW, alone.efficiency, alone.feasible && Number.isFinite(alone.bomCost) && Number.isFinite(alone.lossW) ? 1 : 0]);
+    }
+    expect(shared).toBeGreaterThan(plan.total / 3);
+  });
+
   test('a progress callback returning false stops the run early', () => {
     const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 2, dutySteps: 2 });
     const data = new Float64Array(plan.total * STRIDE);

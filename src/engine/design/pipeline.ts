@@ -39,7 +39,7 @@ function setSwitchDuties(d: Design): void {
 }
 
 /** Conversion, filter and magnetics: the stages that depend on the leakage through n. */
-function designFront(d: Design, model: ResetSchemeModel): void {
+function frontStages(d: Design, model: ResetSchemeModel): void {
   designConversion(d, model);
   d.transientDuty = model.transientDuty(d);
   designFilter(d);
@@ -51,9 +51,18 @@ function designFront(d: Design, model: ResetSchemeModel): void {
 export const LEAKAGE_SETTLE = 1e-2;
 
 function runStages(d: Design): Design {
+  return designBack(designFront(d));
+}
+
+/**
+ * The stages before the main switch is chosen: conversion, filter and magnetics, repeated with the leakage,
+ * then the switch duties and the duty check. Nothing here reads the main switch (it is picked in designStress),
+ * so grid points that differ only in it share this state (see `LeanSweeper` in evaluate.ts).
+ */
+export function designFront(d: Design): Design {
   const spec = d.spec;
   const model = schemeModel(d.scheme);
-  designFront(d, model);
+  frontStages(d, model);
   // Once Llk is known, redesign with the volt-seconds the leakage takes (design/duty.ts). Usually one
   // or two more passes settle c; when a discrete choice (core, turns, an E12 inductor) keeps moving
   // it, later passes only let c grow, which ends the passes and errs towards a larger turns ratio.
@@ -65,7 +74,7 @@ function runStages(d: Design): Design {
     if (d.kV + leakageVoltSecondsV(d, spec.vinMinV) >= spec.vinMinV) break;
     d.leakageCoefficientV = c;
     d.fails.length = 0;
-    designFront(d, model);
+    frontStages(d, model);
   }
   setSwitchDuties(d);
   const leakageAtMinV = leakageVoltSecondsV(d, spec.vinMinV);
@@ -78,6 +87,13 @@ function runStages(d: Design): Design {
     const noRatio = !d.ov?.turnsRatio && c > 0 && !Number.isFinite(turnsRatioWithLeakage(spec.voutV + d.dropsV, spec.leakageRatio, c, d.dutyLimit, spec.vinMinV));
     d.fails.push(noRatio ? 'leakage-commutation' : 'duty-cannot-reach-output');
   }
+  return d;
+}
+
+/** The stages from the main switch on: currents, stress, reset network, snubber, losses, cost, score. */
+export function designBack(d: Design): Design {
+  const spec = d.spec;
+  const model = schemeModel(d.scheme);
   if (d.core) {
     designCurrents(d);
     designStress(d, model);

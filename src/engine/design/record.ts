@@ -143,3 +143,115 @@ export function resetDesign(d: Design, spec: NormalisedSpec, scheme: SchemeId, i
   d.score = 0;
   return d;
 }
+
+/**
+ * Copy every field of `from` into `d` (the failure list and losses by value, so the two records share no
+ * mutable part) and return `d`. A sweep keeps the state after the front stages and restores it for the
+ * next point that shares them; tests/unit/engine/record.test.ts checks that no field is missed.
+ */
+export function copyDesign(d: Design, from: Design): Design {
+  d.fails.length = 0;
+  for (const f of from.fails) d.fails.push(f);
+  d.scheme = from.scheme;
+  d.spec = from.spec;
+  d.index = from.index;
+  d.prices = from.prices;
+  d.ov = from.ov;
+  d.poutW = from.poutW;
+  d.resetDutyLimit = from.resetDutyLimit;
+  d.dutyLimit = from.dutyLimit;
+  d.transientDuty = from.transientDuty;
+  d.resetTurnsRatio = from.resetTurnsRatio;
+  d.rectifierDropV = from.rectifierDropV;
+  d.windingDropV = from.windingDropV;
+  d.dropsV = from.dropsV;
+  d.turnsRatio = from.turnsRatio;
+  d.kV = from.kV;
+  d.leakageCoefficientV = from.leakageCoefficientV;
+  d.leakageDropV = from.leakageDropV;
+  d.dutyAtVinMin = from.dutyAtVinMin;
+  d.dutyAtVinNom = from.dutyAtVinNom;
+  d.dutyAtVinMax = from.dutyAtVinMax;
+  d.rippleA = from.rippleA;
+  d.outputInductanceH = from.outputInductanceH;
+  d.outputCapacitanceF = from.outputCapacitanceF;
+  d.inductor = from.inductor;
+  d.inductorPrice = from.inductorPrice;
+  d.outCap = from.outCap;
+  d.outCapQty = from.outCapQty;
+  d.outCapPrice = from.outCapPrice;
+  d.rectForwardV = from.rectForwardV;
+  d.rectFreewheelV = from.rectFreewheelV;
+  d.rectDiode = from.rectDiode;
+  d.rectSr = from.rectSr;
+  d.rectQty = from.rectQty;
+  d.rectPrice = from.rectPrice;
+  d.core = from.core;
+  d.corePrice = from.corePrice;
+  d.turnsPrimary = from.turnsPrimary;
+  d.deltaBT = from.deltaBT;
+  d.bTransientT = from.bTransientT;
+  d.bAvailableT = from.bAvailableT;
+  d.lmH = from.lmH;
+  d.llkH = from.llkH;
+  d.magnetizingPeakA = from.magnetizingPeakA;
+  d.windowFill = from.windowFill;
+  d.skinDepthM = from.skinDepthM;
+  d.strandAwg = from.strandAwg;
+  d.coreLossW = from.coreLossW;
+  d.primaryPeakA = from.primaryPeakA;
+  d.primaryRmsA = from.primaryRmsA;
+  d.clampV = from.clampV;
+  d.resonantPeakV = from.resonantPeakV;
+  d.resonantCF = from.resonantCF;
+  d.addedCF = from.addedCF;
+  d.clampResOhm = from.clampResOhm;
+  d.clampCapF = from.clampCapF;
+  d.switchPeakV = from.switchPeakV;
+  d.transientV = from.transientV;
+  d.spikeV = from.spikeV;
+  d.snubberNeeded = from.snubberNeeded;
+  d.switchStressV = from.switchStressV;
+  d.switchRatingV = from.switchRatingV;
+  d.mainSwitch = from.mainSwitch;
+  d.mainQty = from.mainQty;
+  d.mainPrice = from.mainPrice;
+  d.auxSwitch = from.auxSwitch;
+  d.auxPrice = from.auxPrice;
+  d.auxRmsA = from.auxRmsA;
+  d.clampDiode = from.clampDiode;
+  d.clampDiodeQty = from.clampDiodeQty;
+  d.clampDiodePrice = from.clampDiodePrice;
+  d.clampCap = from.clampCap;
+  d.clampCapQty = from.clampCapQty;
+  d.clampCapPrice = from.clampCapPrice;
+  d.clampRes = from.clampRes;
+  d.clampResPrice = from.clampResPrice;
+  d.snubberDiode = from.snubberDiode;
+  d.snubberDiodePrice = from.snubberDiodePrice;
+  d.snubberCap = from.snubberCap;
+  d.snubberCapPrice = from.snubberCapPrice;
+  d.snubberCapF = from.snubberCapF;
+  d.snubberRes = from.snubberRes;
+  d.snubberResPrice = from.snubberResPrice;
+  d.lowSideDrivers = from.lowSideDrivers;
+  d.highSideDrivers = from.highSideDrivers;
+  d.efficiency = from.efficiency;
+  d.bomCost = from.bomCost;
+  d.partCount = from.partCount;
+  d.feasible = from.feasible;
+  d.score = from.score;
+  copyLosses(d.lossesW, from.lossesW);
+  return d;
+}
+
+function copyLosses(to: LossesW, from: LossesW): void {
+  to.switchConduction = from.switchConduction;
+  to.switching = from.switching;
+  to.gateDrive = from.gateDrive;
+  to.resetOrClamp = from.resetOrClamp;
+  to.rectifiers = from.rectifiers;
+  to.transformer = from.transformer;
+  to.inductor = from.inductor;
+  to.total = from.total;
+}

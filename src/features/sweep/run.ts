@@ -1,4 +1,4 @@
-import { evaluateLean, type NormalisedSpec, type PartsLibrary } from '../../engine';
+import { LeanSweeper, type NormalisedSpec, type PartsLibrary } from '../../engine';
 import type { SchemeOverride } from '../../schemas/spec';
 import type { SweepPlan } from './plan';
 
@@ -40,6 +40,8 @@ export function globalIndex(ranges: readonly IndexRange[], local: number): numbe
  * Evaluates the plan's points in `ranges` (default: all of them) on the engine's lean path and writes
  * them one after the other into `out` (STRIDE numbers each; with the default range, position = plan index).
  * Plan index order is scheme, frequency, duty limit, main switch, rectifier, core (core fastest).
+ * Points that differ only in the main switch share the engine's front stages: each (rectifier, core) pair
+ * keeps its slot, keyed by the plan index of the same point with the first main switch.
  * `onProgress(done)` is called every `every` points; returning false stops early (the count done is returned).
  */
 export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: SweepPlan, out: Float64Array, onProgress?: (done: number) => boolean | void, every = 5000, ranges: readonly IndexRange[] = [[0, plan.total]]): number {
@@ -58,6 +60,7 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
   const overrides: Record<string, SchemeOverride> = {};
   base.overrides = overrides;
   let overridden = '';
+  const sweeper = new LeanSweeper(library, nr * nc);
   let k = 0;
   let si = 0;
   for (const [from, to] of ranges) {
@@ -86,7 +89,7 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
         overridden = scheme;
       }
       base.fswHz = fswHz;
-      const r = evaluateLean(base, scheme, library);
+      const r = sweeper.evaluate(base, scheme, ri * nc + ci, g - mi * nr * nc);
       const o = k * STRIDE;
       out[o] = si; out[o + 1] = fswHz; out[o + 2] = dutyLimit; out[o + 3] = r.turnsRatio;
       out[o + 4] = mains[mi] ? mi : -1; out[o + 5] = plan.rectifiers[ri] ? ri : -1; out[o + 6] = plan.cores[ci] ? ci : -1;

@@ -3,8 +3,9 @@
  * One sweep worker. It is started when the Sweep page loads, keeps the spec and the parts library it is
  * given once, and evaluates its share of each plan on the engine's lean path. The page terminates it to cancel.
  */
-import { evaluateLean, type NormalisedSpec, type PartsLibrary } from '../../engine';
+import type { NormalisedSpec, PartsLibrary } from '../../engine';
 import { summarise } from './fronts';
+import { DEFAULT_SETTINGS, planSweep, type SweepPlan } from './plan';
 import type { SweepMessage, SweepRequest } from './protocol';
 import { globalIndex, rangeCount, runSweep, STRIDE } from './run';
 
@@ -14,30 +15,80 @@ const now = (): number => performance.timeOrigin + performance.now();
 let spec: NormalisedSpec | null = null;
 let library: PartsLibrary | null = null;
 
+/**
+ * Warm-up. The JIT compiles the engine for the shapes a sweep feeds it (forced parts, shared front stages)
+ * only after it has run them a while, and each worker compiles its own copy on threads that share the cores
+ * with the sweep. On the 2-core test machine each worker's half of a 100,000-point plan took 480–620 ms on
+ * cold workers and 170–260 ms after this warm-up; a warm-up on a smaller plan of other frequencies did less.
+ * So when the page loads, each worker runs the spec's own sweep with the default settings for WARM_POINTS
+ * points, results discarded: about 0.6–1 s of background work. It works in slices of WARM_SLICE points, so
+ * a Run arriving meanwhile starts at once and ends the warm-up.
+ */
+const WARM_SLICE = 2048;
+const WARM_POINTS = 150_000;
+interface WarmUp { plan: SweepPlan; out: Float64Array; done: number; startedAt: number }
+let warm: WarmUp | null = null;
+
+function warmSlice(): void {
+  const w = warm;
+  if (!w || !spec || !library) return;
+  const from = w.done % w.plan.total;
+  const to = Math.min(w.plan.total, from + WARM_SLICE);
+  runSweep(spec, library, w.plan, w.out, progress, 256, [[from, to]]);
+  w.done += to - from;
+  if (w.done >= WARM_POINTS) endWarmUp(); else setTimeout(warmSlice, 0);
+}
+
+/**
+ * Progress of the running job, at most every 200 ms. One function for every run and the warm-up (where no
+ * job is set and it reports nothing): the JIT's code for the sweep loop then calls the same target each time.
+ */
+let job: number | null = null;
+let lastProgress = 0;
+function progress(done: number): void {
+  if (job === null) return;
+  const t = performance.now();
+  if (t - lastProgress < 200) return;
+  lastProgress = t;
+  post({ type: 'progress', job, done });
+}
+
+function endWarmUp(): void {
+  if (!warm) return;
+  post({ type: 'ready', warmMs: performance.now() - warm.startedAt });
+  warm = null;
+}
+
 scope.onmessage = (event: MessageEvent<SweepRequest>): void => {
   const m = event.data;
   if (m.type === 'init') {
-    const t0 = performance.now();
     spec = m.spec;
     library = m.library;
-    // Index the library and let the JIT compile the engine's hot path before the first Run; results are discarded.
-    for (let k = 0; k < 200; k++) for (const scheme of spec.schemes) evaluateLean(spec, scheme, library);
-    post({ type: 'ready', warmMs: performance.now() - t0 });
+    const startedAt = performance.now();
+    try {
+      const plan = planSweep(spec, library, { ...DEFAULT_SETTINGS, schemes: spec.schemes });
+      warm = { plan, out: new Float64Array(WARM_SLICE * STRIDE), done: 0, startedAt };
+      if (plan.total > 0) warmSlice(); else endWarmUp();
+    } catch {
+      // A warm-up is only an optimisation: a spec it cannot plan will report its problem on Run.
+      warm = null;
+      post({ type: 'ready', warmMs: performance.now() - startedAt });
+    }
     return;
   }
+  endWarmUp();
   const receivedAt = now();
   try {
     if (!spec || !library) throw new Error('The sweep worker was asked to run before it was given the requirement set.');
     const count = rangeCount(m.ranges);
     const data = new Float64Array(count * STRIDE);
-    let last = performance.now();
-    const progress = (done: number): void => {
-      const t = performance.now();
-      if (t - last < 200) return;
-      last = t;
-      post({ type: 'progress', job: m.job, done });
-    };
-    runSweep(spec, library, m.plan, data, progress, 256, m.ranges);
+    job = m.job;
+    lastProgress = performance.now();
+    try {
+      runSweep(spec, library, m.plan, data, progress, 256, m.ranges);
+    } finally {
+      job = null;
+    }
     const evaluatedAt = now();
     const part = summarise(data, count, m.plan.schemes.length);
     const fronts = part.fronts.map((f) => f.map((local) => globalIndex(m.ranges, local)));
