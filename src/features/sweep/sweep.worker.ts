@@ -35,6 +35,8 @@ function warmSlice(): void {
   const from = w.done % w.plan.total;
   const to = Math.min(w.plan.total, from + WARM_SLICE);
   runSweep(spec, library, w.plan, w.out, progress, 256, [[from, to]]);
+  // The fronts of each part are found in the worker after its points: warm that code too.
+  summarise(w.out, to - from, w.plan.schemes.length);
   w.done += to - from;
   if (w.done >= WARM_POINTS) endWarmUp(); else setTimeout(warmSlice, 0);
 }
