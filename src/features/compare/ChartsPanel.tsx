@@ -17,9 +17,24 @@ export default function ChartsPanel() {
   const [near, setNear] = useState(false);
   useEffect(() => {
     if (near || !anchor.current) return;
+    const target = anchor.current;
     const observer = new IntersectionObserver((entries) => entries.some((e) => e.isIntersecting) && setNear(true), { rootMargin: '400px' });
-    observer.observe(anchor.current);
-    return () => observer.disconnect();
+    // Each island hydrates on its own. Until the scheme cards are on the page the charts sit near the top and would
+    // count as near on every load, fetching Chart.js with the first load; so watch only once the cards are laid out
+    // (or after 3 s, should they never come).
+    const cardsShown = (): boolean => document.querySelector('[data-scheme-card]') !== null;
+    let started = false;
+    const start = (): void => {
+      if (started) return;
+      started = true;
+      cards.disconnect();
+      window.clearTimeout(timer);
+      observer.observe(target);
+    };
+    const cards = new MutationObserver(() => cardsShown() && start());
+    const timer = window.setTimeout(start, 3000);
+    if (cardsShown()) start(); else cards.observe(document.body, { childList: true, subtree: true });
+    return () => { cards.disconnect(); window.clearTimeout(timer); observer.disconnect(); };
   }, [near]);
   useEffect(() => markRendered('charts'), [comparison]);
   if (!comparison || !library) return null;
