@@ -144,10 +144,15 @@ export class LeanSweeper {
   private scratch: Design | null = null;
 
   /** `slots`: how many front states to keep (the caller's slot numbers run from 0 to slots − 1). */
-  constructor(library: PartsLibrary, slots: number) {
+  constructor(readonly library: PartsLibrary, readonly slots: number) {
     this.index = indexLibrary(library);
     this.keys = new Float64Array(slots).fill(NaN);
     this.kept = new Array<Design | undefined>(slots);
+  }
+
+  /** Forget every kept state (their records stay, to be overwritten): call it before keys start to mean other points. */
+  forget(): void {
+    this.keys.fill(NaN);
   }
 
   // A method on the prototype, not a closure per sweeper: every sweep then calls one and the same function,

@@ -36,6 +36,19 @@ export function globalIndex(ranges: readonly IndexRange[], local: number): numbe
   throw new RangeError(`local index ${local} lies beyond the part's ${rangeCount(ranges)} points`);
 }
 
+let lastSweeper: LeanSweeper | null = null;
+
+/**
+ * One sweeper per library, reused from one call to the next (a worker calls runSweep for every warm-up slice
+ * and every Run: new sweepers would leave their kept records, which live long enough to reach the old
+ * generation, for a major collection during a later Run). Its kept states are forgotten each time.
+ */
+function sweeperFor(library: PartsLibrary, slots: number): LeanSweeper {
+  if (!lastSweeper || lastSweeper.library !== library || lastSweeper.slots < slots) lastSweeper = new LeanSweeper(library, slots);
+  lastSweeper.forget();
+  return lastSweeper;
+}
+
 /**
  * Evaluates the plan's points in `ranges` (default: all of them) on the engine's lean path and writes
  * them one after the other into `out` (STRIDE numbers each; with the default range, position = plan index).
@@ -60,7 +73,7 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
   const overrides: Record<string, SchemeOverride> = {};
   base.overrides = overrides;
   let overridden = '';
-  const sweeper = new LeanSweeper(library, nr * nc);
+  const sweeper = sweeperFor(library, nr * nc);
   let k = 0;
   let si = 0;
   for (const [from, to] of ranges) {
