@@ -9,8 +9,10 @@
  * for at least `SECONDS`. Wall-clock rate is the figure; the CPU share (process CPU time / wall
  * time) shows whether the machine was busy with other work while measuring.
  */
-import { evaluateLean, evaluateNormalised, parseSpecInput, SCHEME_IDS, type NormalisedSpec } from '../src/engine/index';
+import { demoPartsLibrary, evaluateLean, evaluateNormalised, parseSpecInput, SCHEME_IDS, type NormalisedSpec } from '../src/engine/index';
 import { demoSpecs } from '../src/demo/specs';
+import { DEFAULT_SETTINGS, planSweep } from '../src/features/sweep/plan';
+import { runSweep, STRIDE } from '../src/features/sweep/run';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 2);
 const N_SPECS = 1024;
@@ -90,9 +92,34 @@ const full = rate((i) => {
 }, SECONDS);
 const leanParsed = leanRate(variedSpecs(true));
 
+/**
+ * The Sweep screen's own loop (features/sweep/run.ts) over the plan its browser test runs: the first demo
+ * brick with 13 log-spaced frequencies, 5 duty limits and every usable switch, rectifier and core (101,920
+ * points). Points that differ only in the main switch share the engine's front stages. Best of 5 timed runs
+ * after 3 warm-up runs, one thread.
+ */
+function sweepFigure(): { points: number; bestMs: number; checksum: number } {
+  const brick = demoSpecs.find((d) => d.requirements.vinMaxV === 75);
+  if (!brick) throw new Error('the demo brick is missing from the demo specs');
+  const parsed = parseSpecInput(brick.requirements);
+  if (!parsed.ok) throw new Error(parsed.errors.map((e) => e.message).join('; '));
+  const plan = planSweep(parsed.value, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 13 });
+  const out = new Float64Array(plan.total * STRIDE);
+  let bestMs = Infinity, checksum = 0;
+  for (let r = 0; r < 8; r++) {
+    const t0 = performance.now();
+    runSweep(parsed.value, demoPartsLibrary, plan, out);
+    if (r >= 3) bestMs = Math.min(bestMs, performance.now() - t0);
+  }
+  for (let i = 0; i < out.length; i++) checksum += out[i]!;
+  return { points: plan.total, bestMs, checksum };
+}
+const sweep = sweepFigure();
+
 const fmt = (x: number): string => Math.round(x).toLocaleString('en-US');
 const pct = (x: number): string => `${Math.round(100 * x)} %`;
 const tail = (r: Rate): string => `CPU share ${pct(r.cpuShare)}; checksum ${r.checksum.toExponential(6)}`;
 console.log(`lean path:       ${fmt(lean.perS)} scheme-evaluations/s (target ≥ 2,000,000; ${tail(lean)})`);
 console.log(`full evaluation: ${fmt(full.perS * nK)} scheme-evaluations/s (target ≥ 200,000; ${fmt(full.perS)} comparisons of ${nK} schemes/s; ${tail(full)})`);
 console.log(`lean, each spec from its own parseSpecInput call: ${fmt(leanParsed.perS)} scheme-evaluations/s (${tail(leanParsed)})`);
+console.log(`sweep loop (Sweep screen, shared front stages): ${fmt(sweep.points)} design points in ${sweep.bestMs.toFixed(0)} ms on one thread, ${fmt((1000 * sweep.points) / sweep.bestMs)} points/s (best of 5 after 3 warm-up runs; checksum ${sweep.checksum.toExponential(6)})`);
