@@ -6,7 +6,7 @@ import { DEFAULT_SETTINGS, frequencies, planSweep, settingsProblems } from '../.
 import { overrideOf, pointAt } from '../../src/features/sweep/points';
 import { drawCloud, nearestInCloud, newCloud, paintCloud, rgbOf } from '../../src/features/sweep/cloud';
 import { joinBounds, joinFronts, paretoFront, summarise } from '../../src/features/sweep/fronts';
-import { assemble } from '../../src/features/sweep/pool';
+import { assemble, warmPointsPerWorker } from '../../src/features/sweep/pool';
 import { F, globalIndex, partRanges, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
 
 const parsed = parseSpecInput({ vinMinV: 18, vinNomV: 24, vinMaxV: 32, voutV: 5, ioutA: 10, fswHz: 200e3 });
@@ -64,6 +64,10 @@ describe('sweep plan', () => {
         [alone.turnsRatio, alone.bomCost, alone.lossW, alone.efficiency, alone.feasible && Number.isFinite(alone.bomCost) && Number.isFinite(alone.lossW) ? 1 : 0]);
     }
     expect(shared).toBeGreaterThan(plan.total / 3);
+  });
+
+  test('warm-up: 150,000 points per worker on one or two cores, the page total held at 300,000 beyond', () => {
+    expect([1, 2, 3, 4, 8].map(warmPointsPerWorker)).toEqual([150_000, 150_000, 100_000, 75_000, 37_500]);
   });
 
   test('a progress callback returning false stops the run early', () => {

@@ -8,7 +8,7 @@ import type { IndexRange } from './run';
  * library is indexed once and the engine is warm); `run` per sweep with this worker's share of the plan.
  */
 export type SweepRequest =
-  | { type: 'init'; spec: NormalisedSpec; library: PartsLibrary }
+  | { type: 'init'; spec: NormalisedSpec; library: PartsLibrary; warmPoints: number }
   | { type: 'run'; job: number; plan: SweepPlan; ranges: IndexRange[] };
 
 /** Times are epoch milliseconds (`performance.timeOrigin + performance.now()`), comparable across threads. */

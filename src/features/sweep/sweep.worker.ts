@@ -20,13 +20,13 @@ let library: PartsLibrary | null = null;
  * only after it has run them a while, and each worker compiles its own copy on threads that share the cores
  * with the sweep. On the 2-core test machine each worker's half of a 100,000-point plan took 480–620 ms on
  * cold workers and 170–260 ms after this warm-up; a warm-up on a smaller plan of other frequencies did less.
- * So when the page loads, each worker runs the spec's own sweep with the default settings for WARM_POINTS
- * points, results discarded: about 0.6–1 s of background work. It works in slices of WARM_SLICE points, so
- * a Run arriving meanwhile starts at once and ends the warm-up.
+ * So when the page loads, each worker runs the spec's own sweep with the default settings for the points
+ * the page asks (150,000 each on 2 cores; warmPointsPerWorker in pool.ts), results discarded: about 0.6–1 s
+ * of background work. It works in slices of WARM_SLICE points, so a Run arriving meanwhile starts at once
+ * and ends the warm-up.
  */
 const WARM_SLICE = 2048;
-const WARM_POINTS = 150_000;
-interface WarmUp { plan: SweepPlan; out: Float64Array; done: number; startedAt: number }
+interface WarmUp { plan: SweepPlan; out: Float64Array; done: number; points: number; startedAt: number }
 let warm: WarmUp | null = null;
 
 function warmSlice(): void {
@@ -38,7 +38,7 @@ function warmSlice(): void {
   // The fronts of each part are found in the worker after its points: warm that code too.
   summarise(w.out, to - from, w.plan.schemes.length);
   w.done += to - from;
-  if (w.done >= WARM_POINTS) endWarmUp(); else setTimeout(warmSlice, 0);
+  if (w.done >= w.points) endWarmUp(); else setTimeout(warmSlice, 0);
 }
 
 /**
@@ -69,8 +69,8 @@ scope.onmessage = (event: MessageEvent<SweepRequest>): void => {
     const startedAt = performance.now();
     try {
       const plan = planSweep(spec, library, { ...DEFAULT_SETTINGS, schemes: spec.schemes });
-      warm = { plan, out: new Float64Array(WARM_SLICE * STRIDE), done: 0, startedAt };
-      if (plan.total > 0) warmSlice(); else endWarmUp();
+      warm = { plan, out: new Float64Array(WARM_SLICE * STRIDE), done: 0, points: m.warmPoints, startedAt };
+      if (plan.total > 0 && m.warmPoints > 0) warmSlice(); else endWarmUp();
     } catch {
       // A warm-up is only an optimisation: a spec it cannot plan will report its problem on Run.
       warm = null;
