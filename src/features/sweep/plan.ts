@@ -1,4 +1,4 @@
-import { evaluateLean, SCHEME_IDS, type NormalisedSpec, type PartsLibrary, type SchemeId } from '../../engine';
+import { evaluateLean, SCHEME_IDS, type LeanResult, type NormalisedSpec, type PartsLibrary, type SchemeId } from '../../engine';
 
 /** What the user chose to vary. Frequencies in Hz. */
 export interface SweepSettings {
@@ -40,6 +40,19 @@ export function settingsProblems(s: SweepSettings): string[] {
   return out;
 }
 
+/** Each scheme's own design for the last spec and library planned (the page plans again on every settings edit; specs and libraries are never changed in place). */
+let defaultsOf: { spec: NormalisedSpec; library: PartsLibrary; byScheme: Map<SchemeId, LeanResult> } | null = null;
+
+function defaultDesign(spec: NormalisedSpec, library: PartsLibrary, scheme: SchemeId): LeanResult {
+  if (!defaultsOf || defaultsOf.spec !== spec || defaultsOf.library !== library) defaultsOf = { spec, library, byScheme: new Map() };
+  let r = defaultsOf.byScheme.get(scheme);
+  if (!r) {
+    r = evaluateLean(spec, scheme, library);
+    defaultsOf.byScheme.set(scheme, r);
+  }
+  return r;
+}
+
 /** Log-spaced frequencies (equal ratios, as a designer steps frequency). */
 export function frequencies(minHz: number, maxHz: number, steps: number): number[] {
   if (steps === 1 || minHz === maxHz) return [minHz];
@@ -55,7 +68,7 @@ export function frequencies(minHz: number, maxHz: number, steps: number): number
 export function planSweep(spec: NormalisedSpec, library: PartsLibrary, s: SweepSettings): SweepPlan {
   const usable = <T extends { status: string }>(parts: T[]): T[] => parts.filter((p) => p.status !== 'nfnd');
   const fswHz = frequencies(s.fswMinHz, s.fswMaxHz, s.fswSteps);
-  const defaults = s.schemes.map((scheme) => evaluateLean(spec, scheme, library));
+  const defaults = s.schemes.map((scheme) => defaultDesign(spec, library, scheme));
   const dutyLimits = defaults.map((r) => {
     if (s.dutySteps === 1) return [r.dutyLimit];
     return Array.from({ length: s.dutySteps }, (_, k) => r.dutyLimit * (0.6 + (0.4 * k) / (s.dutySteps - 1)));

@@ -102,7 +102,12 @@ export class SweepPool {
   }
 
   private receive(w: number, m: SweepMessage): void {
-    if (m.type === 'ready') { this.warmMs.push(m.warmMs); return; }
+    if (m.type === 'ready') {
+      this.warmMs.push(m.warmMs);
+      // For the browser test: how many workers have finished warming up.
+      Object.assign(window, { __sweepWarmed: this.warmMs.length, __sweepWarmedMs: [...this.warmMs] });
+      return;
+    }
     const active = this.active;
     if (!active || (m.job !== null && m.job !== active.job)) return;
     if (m.type === 'error') { this.fail(m.message); return; }

@@ -19,11 +19,12 @@ let library: PartsLibrary | null = null;
  * Warm-up. The JIT compiles the engine for the shapes a sweep feeds it (forced parts, shared front stages)
  * only after it has run them a while, and each worker compiles its own copy on threads that share the cores
  * with the sweep. On the 2-core test machine each worker's half of a 100,000-point plan took 480–620 ms on
- * cold workers and 170–260 ms after this warm-up; a warm-up on a smaller plan of other frequencies did less.
+ * cold workers and 150–250 ms after this warm-up; a warm-up on a smaller plan of other frequencies did less.
  * So when the page loads, each worker runs the spec's own sweep with the default settings for the points
- * the page asks (150,000 each on 2 cores; warmPointsPerWorker in pool.ts), results discarded: about 0.6–1 s
- * of background work. It works in slices of WARM_SLICE points, so a Run arriving meanwhile starts at once
- * and ends the warm-up.
+ * the page asks (150,000 each on 2 cores; warmPointsPerWorker in pool.ts), results discarded. It works in
+ * slices of WARM_SLICE points and rests as long as each slice took: at full speed the workers took every
+ * core and the page's own tasks (rendering, the settings form) ran 55–150 ms long; at half speed none went
+ * over 50 ms and the warm-up takes 1–1.5 s. A Run arriving meanwhile starts at once and ends the warm-up.
  */
 const WARM_SLICE = 2048;
 interface WarmUp { plan: SweepPlan; out: Float64Array; done: number; points: number; startedAt: number }
@@ -32,13 +33,15 @@ let warm: WarmUp | null = null;
 function warmSlice(): void {
   const w = warm;
   if (!w || !spec || !library) return;
+  const t0 = performance.now();
   const from = w.done % w.plan.total;
   const to = Math.min(w.plan.total, from + WARM_SLICE);
   runSweep(spec, library, w.plan, w.out, progress, 256, [[from, to]]);
   // The fronts of each part are found in the worker after its points: warm that code too.
   summarise(w.out, to - from, w.plan.schemes.length);
   w.done += to - from;
-  if (w.done >= w.points) endWarmUp(); else setTimeout(warmSlice, 0);
+  // Rest as long as the slice took: the warm-up takes half of this worker's core, leaving the page room.
+  if (w.done >= w.points) endWarmUp(); else setTimeout(warmSlice, performance.now() - t0);
 }
 
 /**
