@@ -2,12 +2,12 @@ import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { demoPartsLibrary, evaluateLean, parseSpecInput } from '../../src/engine';
 import { decodeOverrides, encodeOverrides, handoffHref, readHandoff } from '../../src/features/sweep/handoff';
-import { DEFAULT_SETTINGS, frequencies, planSweep, settingsProblems } from '../../src/features/sweep/plan';
+import { DEFAULT_SETTINGS, frequencies, planSweep, settingsProblems, type SweepSettings } from '../../src/features/sweep/plan';
 import { overrideOf, pointAt } from '../../src/features/sweep/points';
 import { drawCloud, nearestInCloud, newCloud, paintCloud, rgbOf } from '../../src/features/sweep/cloud';
 import { joinBounds, joinFronts, paretoFront, summarise } from '../../src/features/sweep/fronts';
 import { assemble, warmPointsPerWorker } from '../../src/features/sweep/pool';
-import { F, globalIndex, partRanges, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
+import { dealChunks, F, globalIndex, partRanges, planChunks, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
 
 const parsed = parseSpecInput({ vinMinV: 18, vinNomV: 24, vinMaxV: 32, voutV: 5, ioutA: 10, fswHz: 200e3 });
 if (!parsed.ok) throw new Error('spec');
@@ -128,6 +128,47 @@ describe('sweep split across workers (derived: a partition of the plan)', () => 
     // Interleaved chunks: no part gets more than one chunk more than another.
     const counts = shares.map((r) => r.length);
     expect(Math.max(...counts) - Math.min(...counts)).toBeLessThanOrEqual(1);
+  });
+  test.each<[string, Partial<SweepSettings>]>([
+    ['default settings', {}],
+    ['one frequency, one duty step, no part variation', { fswSteps: 1, dutySteps: 1, varyMainSwitch: false, varyRectifier: false, varyCore: false }],
+    ['two schemes, 13 frequencies', { schemes: ['rcd-clamp', 'two-switch'], fswSteps: 13 }],
+  ])('plan chunks (%s) end at whole front groups, about 1,024 points each, and dealt to two parts they cover the plan once', (_, over) => {
+    const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, ...over });
+    const bounds = planChunks(plan);
+    expect(bounds[0]).toBe(0);
+    expect(bounds.at(-1)).toBe(plan.total);
+    // Each scheme's block and its group size (every main switch, rectifier and core of one frequency and duty limit).
+    const blocks: [start: number, end: number, group: number][] = [];
+    let start = 0;
+    plan.schemes.forEach((_, s) => {
+      const group = plan.mainSwitches[s]!.length * plan.rectifiers.length * plan.cores.length;
+      const end = start + plan.fswHz.length * plan.dutyLimits[s]!.length * group;
+      blocks.push([start, end, group]);
+      start = end;
+    });
+    for (let k = 1; k < bounds.length; k++) {
+      expect(bounds[k]!).toBeGreaterThan(bounds[k - 1]!);
+      const [blockStart, , group] = blocks.find(([a, b]) => bounds[k]! > a && bounds[k]! <= b)!;
+      expect((bounds[k]! - blockStart) % group).toBe(0);
+      expect(bounds[k]! - bounds[k - 1]!).toBeLessThanOrEqual(Math.max(group, 1.5 * 1024));
+    }
+    const seen = new Uint8Array(plan.total);
+    for (const ranges of dealChunks(bounds, 2)) for (const [a, b] of ranges) for (let g = a; g < b; g++) seen[g]!++;
+    expect(seen.every((n) => n === 1)).toBe(true);
+  });
+  test('a sweep dealt in front-group chunks to two parts gives the numbers of the whole run', () => {
+    const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 2, dutySteps: 2 });
+    const whole = new Float64Array(plan.total * STRIDE);
+    runSweep(spec, demoPartsLibrary, plan, whole);
+    for (const ranges of dealChunks(planChunks(plan, 300), 2)) {
+      const data = new Float64Array(rangeCount(ranges) * STRIDE);
+      runSweep(spec, demoPartsLibrary, plan, data, undefined, 5000, ranges);
+      for (let local = 0; local < rangeCount(ranges); local++) {
+        const g = globalIndex(ranges, local);
+        expect(Array.from(data.subarray(local * STRIDE, (local + 1) * STRIDE))).toEqual(Array.from(whole.subarray(g * STRIDE, (g + 1) * STRIDE)));
+      }
+    }
   });
   test('a part count below one is refused', () => {
     expect(() => partRanges(10, 0)).toThrow(RangeError);

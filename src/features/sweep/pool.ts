@@ -2,7 +2,7 @@ import type { NormalisedSpec, PartsLibrary } from '../../engine';
 import { joinBounds, joinFronts, type CloudBounds } from './fronts';
 import type { SweepPlan } from './plan';
 import type { PartTimes, SweepMessage, SweepRequest } from './protocol';
-import { partRanges, STRIDE } from './run';
+import { dealChunks, planChunks, STRIDE } from './run';
 
 /** A finished sweep on the main thread: every point's numbers (plan order), fronts and extent. */
 export interface SweepResult {
@@ -72,7 +72,8 @@ export class SweepPool {
   run(plan: SweepPlan, startedAt: number, handlers: Handlers): void {
     if (this.active) this.cancel();
     const job = ++this.job;
-    const shares = partRanges(plan.total, this.workers.length).filter((r) => r.length > 0);
+    // Chunk edges at whole front groups, so no two workers compute the same shared front stages.
+    const shares = dealChunks(planChunks(plan), this.workers.length).filter((r) => r.length > 0);
     // The page's copy of the numbers; each part is put in place as it arrives, so the last one finds little left to do.
     this.active = { job, plan, handlers, parts: [], done: shares.map(() => 0), startedAt, data: new Float64Array(plan.total * STRIDE) };
     shares.forEach((ranges, w) => {

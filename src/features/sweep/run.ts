@@ -15,10 +15,38 @@ export type IndexRange = readonly [from: number, to: number];
  * Each index belongs to exactly one part; within a part the ranges rise.
  */
 export function partRanges(total: number, parts: number, chunk = 1024): IndexRange[][] {
+  const bounds: number[] = [];
+  for (let from = 0; from < total; from += chunk) bounds.push(from);
+  bounds.push(total);
+  return dealChunks(bounds, parts);
+}
+
+/** Deals the chunks between rising `bounds` (first 0, last the total) to `parts` parts, chunk k to part k mod parts. */
+export function dealChunks(bounds: readonly number[], parts: number): IndexRange[][] {
   if (!(Number.isInteger(parts) && parts >= 1)) throw new RangeError(`parts must be a whole number of at least 1, got ${parts}`);
   const out: IndexRange[][] = Array.from({ length: parts }, () => []);
-  for (let from = 0, k = 0; from < total; from += chunk, k++) out[k % parts]!.push([from, Math.min(total, from + chunk)]);
+  for (let k = 0; k + 1 < bounds.length; k++) if (bounds[k + 1]! > bounds[k]!) out[k % parts]!.push([bounds[k]!, bounds[k + 1]!]);
   return out;
+}
+
+/**
+ * Chunk bounds of a plan at whole front groups, about `target` points each. Within a scheme's block a group
+ * is every main switch, rectifier and core for one frequency and duty limit: the points that share the
+ * engine's front stages (LeanSweeper), which a chunk edge inside a group would make two workers compute.
+ */
+export function planChunks(plan: SweepPlan, target = 1024): number[] {
+  const nf = plan.fswHz.length, nr = plan.rectifiers.length, nc = plan.cores.length;
+  const bounds = [0];
+  let start = 0;
+  for (let si = 0; si < plan.schemes.length; si++) {
+    const group = plan.mainSwitches[si]!.length * nr * nc;
+    const groups = nf * plan.dutyLimits[si]!.length;
+    const per = Math.max(1, Math.round(target / group));
+    for (let g = per; g < groups; g += per) bounds.push(start + g * group);
+    start += groups * group;
+    bounds.push(start);
+  }
+  return bounds;
 }
 
 /** Number of indices the ranges cover. */
