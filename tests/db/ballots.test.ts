@@ -1,8 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
-import { backends } from '../helpers/databases';
-import type { Database } from '../../src/db/client';
-import { seedDemo } from '../../src/db/seed';
+import { backends, seededDemoDatabase } from '../helpers/databases';
 import { addCandidate, castBallot, closeVoting, createShortlist, openVoting, ShortlistRuleError } from '../../src/db/queries/shortlists';
 import { auditLog, ballots } from '../../src/db/schema';
 
@@ -23,17 +21,10 @@ async function outcomeOf(promise: Promise<{ changed: boolean }>): Promise<string
 }
 
 describe.each(backends())('ballots written together on $name', (backend) => {
-  let database: Database;
-  beforeAll(async () => {
-    database = await backend.open();
-    await seedDemo(database.db, async (p) => `plain:${p}`);
-  });
-  afterAll(async () => {
-    await database?.close();
-  });
+  const database = seededDemoDatabase(backend);
 
   async function votingShortlist(voterIds: string[]): Promise<{ id: string; a: string; b: string }> {
-    const db = database.db;
+    const db = database().db;
     const id = await createShortlist(db, { specId: 'demo-spec-1', title: `Batch ${Math.random()}` }, architect.id);
     const a = await addCandidate(db, id, { scheme: 'two-switch', overrides: {}, note: '' }, snapshot, architect.id);
     const b = await addCandidate(db, id, { scheme: 'active-clamp', overrides: {}, note: '' }, snapshot, architect.id);
@@ -42,7 +33,7 @@ describe.each(backends())('ballots written together on $name', (backend) => {
   }
 
   it('simultaneous ballots: each gets its own answer; refused ones write nothing; one ballot per voter', async () => {
-    const db = database.db;
+    const db = database().db;
     const { id, a, b } = await votingShortlist(['demo-engineer', 'demo-engineer2', 'demo-architect']);
     const good = { ranking: [a, b], concerns: [], comment: '' };
     const results = await Promise.all([
@@ -71,7 +62,7 @@ describe.each(backends())('ballots written together on $name', (backend) => {
   });
 
   it('many voters at once are all counted once', async () => {
-    const db = database.db;
+    const db = database().db;
     const voters = ['demo-engineer', 'demo-engineer2', 'demo-engineer3', 'demo-architect'];
     const { id, a, b } = await votingShortlist(voters);
     const replies = await Promise.all([...voters, ...voters, ...voters].map((v, i) => outcomeOf(castBallot(db, id, v, { ranking: i % 2 ? [a, b] : [b, a], concerns: [], comment: `round ${i}` }))));
@@ -84,7 +75,7 @@ describe.each(backends())('ballots written together on $name', (backend) => {
   });
 
   it('after voting closes, every ballot waiting is refused with the same reason; unknown shortlists are 404', async () => {
-    const db = database.db;
+    const db = database().db;
     const { id, a, b } = await votingShortlist(['demo-engineer', 'demo-engineer2']);
     await closeVoting(db, id, architect);
     const replies = await Promise.all(['demo-engineer', 'demo-engineer2'].map((v) => outcomeOf(castBallot(db, id, v, { ranking: [a, b], concerns: [], comment: '' }))));

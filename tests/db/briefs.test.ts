@@ -1,9 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { backends } from '../helpers/databases';
-import type { Database } from '../../src/db/client';
+import { backends, seededDemoDatabase } from '../helpers/databases';
 import { auditLog, briefShares, candidates, shortlists } from '../../src/db/schema';
-import { seedDemo } from '../../src/db/seed';
 import { createBrief, findShare, logShareView, listVersions, recordSend, recordShare, revokeShares } from '../../src/db/queries/briefs';
 import { loadBrief, sameContent } from '../../src/features/briefs/service.server';
 import { hashShareToken, newShareToken, shareExpiry } from '../../src/features/briefs/share.server';
@@ -12,24 +10,16 @@ import { briefDraftSchema } from '../../src/schemas/briefs';
 import { verdictOf } from '../../src/features/compare/figures';
 import { createMailer } from '../../src/lib/server/mail';
 
-const fakeHash = async (password: string) => `plain:${password}`;
 const DAY_MS = 86_400_000;
 
 describe.each(backends())('briefs on $name', (backend) => {
-  let database: Database;
-  beforeAll(async () => {
-    database = await backend.open();
-    await seedDemo(database.db, fakeHash);
-  });
-  afterAll(async () => {
-    await database?.close();
-  });
+  const database = seededDemoDatabase(backend);
 
   const brief = (specId: string, shortlistId: string | null = null) =>
-    createBrief(database.db, { specId, shortlistId, title: 'Brief', customerName: 'Nordlicht Telecom (fictional)', customerContact: '', draft: briefDraftSchema.parse({}) }, 'demo-sales');
+    createBrief(database().db, { specId, shortlistId, title: 'Brief', customerName: 'Nordlicht Telecom (fictional)', customerContact: '', draft: briefDraftSchema.parse({}) }, 'demo-sales');
 
   it('a decided shortlist sets the recommendation; verdicts still follow the engine', async () => {
-    const db = database.db;
+    const db = database().db;
     await db.insert(shortlists).values({ id: 'sl-1', specId: 'demo-spec-1', title: 'Brick reset choice', ownerId: 'demo-architect', status: 'voting' });
     await db.insert(candidates).values({ id: 'cand-1', shortlistId: 'sl-1', scheme: 'tertiary-winding', createdById: 'demo-architect' });
     const id = await brief('demo-spec-1', 'sl-1');
@@ -47,7 +37,7 @@ describe.each(backends())('briefs on $name', (backend) => {
   });
 
   it('share links expire after 30 days by default and on their own expiry date', async () => {
-    const db = database.db;
+    const db = database().db;
     const id = await brief('demo-spec-3');
     const loaded = (await loadBrief(db, id, { demo: true }))!;
     const content = loaded.content as unknown as Record<string, unknown>;
@@ -67,7 +57,7 @@ describe.each(backends())('briefs on $name', (backend) => {
   });
 
   it('only the hash is stored; revoking ends the link; views are logged; changes are audited', async () => {
-    const db = database.db;
+    const db = database().db;
     const id = await brief('demo-spec-2');
     const content = (await loadBrief(db, id, { demo: true }))!.content as unknown as Record<string, unknown>;
     const { token, tokenHash } = newShareToken();
@@ -86,7 +76,7 @@ describe.each(backends())('briefs on $name', (backend) => {
   });
 
   it('sharing an unchanged brief reuses its latest version (content compares after the jsonb round trip)', async () => {
-    const db = database.db;
+    const db = database().db;
     const id = await brief('demo-spec-1');
     const content = (await loadBrief(db, id, { demo: true }))!.content as unknown as Record<string, unknown>;
     const same = (latest: Record<string, unknown>) => sameContent(latest, content);
@@ -100,7 +90,7 @@ describe.each(backends())('briefs on $name', (backend) => {
   });
 
   it('the brief mail goes out as plain text and HTML, both with the share link', async () => {
-    const db = database.db;
+    const db = database().db;
     const id = await brief('demo-spec-2');
     const loaded = (await loadBrief(db, id, { demo: true }))!;
     const link = `https://resetwise.example/share/${newShareToken().token}`;

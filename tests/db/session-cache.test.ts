@@ -1,9 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { backends } from '../helpers/databases';
-import type { Database } from '../../src/db/client';
+import { backends, seededDemoDatabase } from '../helpers/databases';
 import { sessions } from '../../src/db/schema';
-import { seedDemo } from '../../src/db/seed';
 import { createAuth, SESSION_LIFETIME, sessionIdFromToken, startSession, validateToken, type SignedInUser } from '../../src/lib/server/auth';
 import { SessionCache } from '../../src/lib/server/session-cache';
 
@@ -13,18 +11,11 @@ import { SessionCache } from '../../src/lib/server/session-cache';
 const engineer: SignedInUser = { id: 'demo-engineer', email: 'engineer@resetwise.example', displayName: 'x', role: 'engineer', active: true };
 
 describe.each(backends())('cached sessions on $name', (backend) => {
-  let database: Database;
-  beforeAll(async () => {
-    database = await backend.open();
-    await seedDemo(database.db, async (p) => `plain:${p}`);
-  });
-  afterAll(async () => {
-    await database?.close();
-  });
+  const database = seededDemoDatabase(backend);
 
   function setup() {
     const cache = new SessionCache({ lifetimeMs: SESSION_LIFETIME.milliseconds(), maxAgeMs: null, maxEntries: 100 });
-    return { cache, auth: createAuth(database.db, { secureCookie: false, sessionCache: cache }) };
+    return { cache, auth: createAuth(database().db, { secureCookie: false, sessionCache: cache }) };
   }
 
   it('sign-out (invalidateSession) ends a cached session at once', async () => {
@@ -53,11 +44,11 @@ describe.each(backends())('cached sessions on $name', (backend) => {
     expect(cache.get(sessionIdFromToken(token))?.user.id).toBe('demo-engineer');
     const id = sessionIdFromToken(token);
     // Move the stored expiry into the second half and evict, as a renewal point reached would.
-    await database.db.update(sessions).set({ expiresAt: new Date(Date.now() + 3600_000) }).where(eq(sessions.id, id));
+    await database().db.update(sessions).set({ expiresAt: new Date(Date.now() + 3600_000) }).where(eq(sessions.id, id));
     cache.forgetSession(id);
     const renewed = await validateToken(auth, token, cache);
     expect(renewed.renewed).toBe(true);
-    const [row] = await database.db.select().from(sessions).where(eq(sessions.id, id));
+    const [row] = await database().db.select().from(sessions).where(eq(sessions.id, id));
     expect(row!.expiresAt.getTime()).toBeGreaterThan(Date.now() + 11 * 3600_000);
     // The renewal evicted the entry; the next request caches the new expiry and needs no renewal.
     const next = await validateToken(auth, token, cache);

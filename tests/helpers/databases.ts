@@ -1,4 +1,6 @@
 import { randomBytes } from 'node:crypto';
+import { afterAll, beforeAll } from 'vitest';
+import { seedDemo } from '../../src/db/seed';
 import { openDatabase, type Database } from '../../src/db/client';
 
 export interface Backend {
@@ -39,5 +41,24 @@ async function openFreshPostgres(serverUrl: string): Promise<Database> {
       await cleanup.query(`drop database if exists ${name}`);
       await cleanup.end();
     },
+  };
+}
+
+/**
+ * A database of `backend` with the demo workspace seeded (passwords stored as `plain:…`), opened before the
+ * tests of the enclosing describe block and closed after them. Call the returned function inside a test.
+ */
+export function seededDemoDatabase(backend: Backend): () => Database {
+  let database: Database | undefined;
+  beforeAll(async () => {
+    database = await backend.open();
+    await seedDemo(database.db, async (password) => `plain:${password}`);
+  });
+  afterAll(async () => {
+    await database?.close();
+  });
+  return () => {
+    if (!database) throw new Error('the seeded database is opened in beforeAll; use it inside a test');
+    return database;
   };
 }
