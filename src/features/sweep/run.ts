@@ -30,21 +30,30 @@ export function dealChunks(bounds: readonly number[], parts: number): IndexRange
 }
 
 /**
- * Chunk bounds of a plan at whole front groups, about `target` points each. Within a scheme's block a group
- * is every main switch, rectifier and core for one frequency and duty limit: the points that share the
- * engine's front stages (LeanSweeper), which a chunk edge inside a group would make two workers compute.
+ * Each scheme's block of plan indices (plan order): where it starts, and its front groups. A group is every
+ * main switch, rectifier and core for one frequency and duty limit: the points that share the engine's front
+ * stages (LeanSweeper).
+ */
+export function schemeBlocks(plan: SweepPlan): { start: number; group: number; groups: number }[] {
+  const nr = plan.rectifiers.length, nc = plan.cores.length;
+  let start = 0;
+  return plan.schemes.map((_, si) => {
+    const block = { start, group: plan.mainSwitches[si]!.length * nr * nc, groups: plan.fswHz.length * plan.dutyLimits[si]!.length };
+    start += block.group * block.groups;
+    return block;
+  });
+}
+
+/**
+ * Chunk bounds of a plan at whole front groups (schemeBlocks), about `target` points each: a chunk edge
+ * inside a group would make two workers compute the same front stages.
  */
 export function planChunks(plan: SweepPlan, target = 1024): number[] {
-  const nf = plan.fswHz.length, nr = plan.rectifiers.length, nc = plan.cores.length;
   const bounds = [0];
-  let start = 0;
-  for (let si = 0; si < plan.schemes.length; si++) {
-    const group = plan.mainSwitches[si]!.length * nr * nc;
-    const groups = nf * plan.dutyLimits[si]!.length;
+  for (const { start, group, groups } of schemeBlocks(plan)) {
     const per = Math.max(1, Math.round(target / group));
     for (let g = per; g < groups; g += per) bounds.push(start + g * group);
-    start += groups * group;
-    bounds.push(start);
+    bounds.push(start + groups * group);
   }
   return bounds;
 }
@@ -87,12 +96,7 @@ function sweeperFor(library: PartsLibrary, slots: number): LeanSweeper {
  */
 export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: SweepPlan, out: Float64Array, onProgress?: (done: number) => boolean | void, every = 5000, ranges: readonly IndexRange[] = [[0, plan.total]]): number {
   const nf = plan.fswHz.length, nr = plan.rectifiers.length, nc = plan.cores.length;
-  const blockStart: number[] = [];
-  let start = 0;
-  for (let si = 0; si < plan.schemes.length; si++) {
-    blockStart.push(start);
-    start += nf * plan.dutyLimits[si]!.length * plan.mainSwitches[si]!.length * nr * nc;
-  }
+  const blockStart = schemeBlocks(plan).map((b) => b.start);
   const base = { ...spec };
   // One override record per scheme, rewritten per point (the engine keeps no reference past the call): a sweep
   // allocates nothing per point.
