@@ -2,12 +2,12 @@ import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { demoPartsLibrary, evaluateLean, parseSpecInput } from '../../src/engine';
 import { decodeOverrides, encodeOverrides, handoffHref, readHandoff } from '../../src/features/sweep/handoff';
-import { DEFAULT_SETTINGS, frequencies, planSweep, settingsProblems, type SweepSettings } from '../../src/features/sweep/plan';
+import { DEFAULT_SETTINGS, frequencies, ownPlan, planSweep, settingsProblems, type SweepSettings } from '../../src/features/sweep/plan';
 import { overrideOf, pointAt } from '../../src/features/sweep/points';
 import { drawCloud, nearestInCloud, newCloud, paintCloud, rgbOf } from '../../src/features/sweep/cloud';
 import { joinBounds, joinFronts, paretoFront, summarise } from '../../src/features/sweep/fronts';
 import { assemble, warmPointsPerWorker } from '../../src/features/sweep/pool';
-import { dealChunks, F, globalIndex, partRanges, planChunks, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
+import { dealChunks, F, globalIndex, ownRanges, partRanges, planChunks, rangeCount, runSweep, STRIDE } from '../../src/features/sweep/run';
 
 const parsed = parseSpecInput({ vinMinV: 18, vinNomV: 24, vinMaxV: 32, voutV: 5, ioutA: 10, fswHz: 200e3 });
 if (!parsed.ok) throw new Error('spec');
@@ -68,6 +68,19 @@ describe('sweep plan', () => {
 
   test('warm-up: 150,000 points per worker on one or two cores, the page total held at 300,000 beyond', () => {
     expect([1, 2, 3, 4, 8].map(warmPointsPerWorker)).toEqual([150_000, 150_000, 100_000, 75_000, 37_500]);
+  });
+
+  test('a plan and ranges that crossed to a worker (structured clone) come back from ownPlan and ownRanges unchanged, and sweep alike', () => {
+    const plan = planSweep(spec, demoPartsLibrary, { ...DEFAULT_SETTINGS, fswSteps: 2, dutySteps: 2 });
+    const own = ownPlan(structuredClone(plan), demoPartsLibrary);
+    expect(own).toEqual(plan);
+    expect(ownRanges(structuredClone([[0, 5], [9, 12]]))).toEqual([[0, 5], [9, 12]]);
+    // An id the library lacks (a part removed meanwhile) is kept as sent: the engine reports it as unknown.
+    expect(ownPlan({ ...plan, cores: ['no-such-core', null] }, demoPartsLibrary).cores).toEqual(['no-such-core', null]);
+    const a = new Float64Array(plan.total * STRIDE), b = new Float64Array(plan.total * STRIDE);
+    runSweep(spec, demoPartsLibrary, plan, a);
+    runSweep(spec, demoPartsLibrary, own, b);
+    expect(b).toEqual(a);
   });
 
   test('a progress callback returning false stops the run early', () => {

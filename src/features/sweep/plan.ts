@@ -94,3 +94,20 @@ export function planSweep(spec: NormalisedSpec, library: PartsLibrary, s: SweepS
     rectifiers: rectifiers.length ? rectifiers : [null], cores: cores.length ? cores : [null], total,
   };
 }
+
+/**
+ * A copy of `plan` made of this thread's own values: every scheme id from SCHEME_IDS, every part id the string of
+ * `library`'s own part, fresh number arrays. A worker runs each plan through it, the warm-up's as well as each
+ * Run's: a Run's plan arrives by structured clone, with new strings and arrays of other element kinds than those
+ * `planSweep` builds, and the sweep loop the JIT had compiled on the warm-up's plan was deoptimised at each Run's
+ * first points ("wrong map", "wrong instance type" in Chromium's --trace-deopt) and finished it in slower code.
+ */
+export function ownPlan(p: SweepPlan, library: PartsLibrary): SweepPlan {
+  const known = new Map<string, string>();
+  for (const list of [library.mosfets, library.srMosfets, library.rectifiers, library.cores]) for (const part of list) known.set(part.id, part.id);
+  const ids = (list: readonly (string | null)[]): (string | null)[] => list.map((id) => (id === null ? null : known.get(id) ?? id));
+  return {
+    schemes: p.schemes.map((s) => SCHEME_IDS.find((id) => id === s) ?? s), fswHz: p.fswHz.map(Number), dutyLimits: p.dutyLimits.map((d) => d.map(Number)),
+    mainSwitches: p.mainSwitches.map(ids), rectifiers: ids(p.rectifiers), cores: ids(p.cores), total: Number(p.total),
+  };
+}

@@ -58,6 +58,11 @@ export function planChunks(plan: SweepPlan, target = 1024): number[] {
   return bounds;
 }
 
+/** A fresh copy of `ranges` (see ownPlan in plan.ts: a worker feeds the sweep loop arrays built the same way each time). */
+export function ownRanges(ranges: readonly IndexRange[]): IndexRange[] {
+  return ranges.map(([a, b]) => [Number(a), Number(b)]);
+}
+
 /** Number of indices the ranges cover. */
 export function rangeCount(ranges: readonly IndexRange[]): number {
   return ranges.reduce((n, [a, b]) => n + (b - a), 0);
@@ -87,28 +92,40 @@ function sweeperFor(library: PartsLibrary, slots: number): LeanSweeper {
 }
 
 /**
- * Evaluates the plan's points in `ranges` (default: all of them) on the engine's lean path and writes
- * them one after the other into `out` (STRIDE numbers each; with the default range, position = plan index).
- * Plan index order is scheme, frequency, duty limit, main switch, rectifier, core (core fastest).
- * Points that differ only in the main switch share the engine's front stages: each (rectifier, core) pair
- * keeps its slot, keyed by the plan index of the same point with the first main switch.
- * `onProgress(done)` is called every `every` points; returning false stops early (the count done is returned).
+ * One walk over a plan: its per-run state, and the loop over a range of plan indices. A class, and the loop a
+ * prototype method, so every walk (each warm-up slice, each Run) has the same shape and runs the same function:
+ * the JIT optimises `range` as a whole function during the warm-up, and a Run enters that code directly.
+ * (With the loop inside runSweep, called once per Run, each Run started in the interpreter and the optimising
+ * compiler only caught up part-way through, by on-stack replacement.)
  */
-export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: SweepPlan, out: Float64Array, onProgress?: (done: number) => boolean | void, every = 5000, ranges: readonly IndexRange[] = [[0, plan.total]]): number {
-  const nf = plan.fswHz.length, nr = plan.rectifiers.length, nc = plan.cores.length;
-  const blockStart = schemeBlocks(plan).map((b) => b.start);
-  const base = { ...spec };
+class Walk {
+  private readonly nf: number;
+  private readonly nr: number;
+  private readonly nc: number;
+  private readonly blockStart: number[];
+  private readonly base: NormalisedSpec;
   // One override record per scheme, rewritten per point (the engine keeps no reference past the call): a sweep
   // allocates nothing per point.
-  const partIds: NonNullable<SchemeOverride['partIds']> = {};
-  const override: SchemeOverride = { dutyLimit: 0, partIds };
-  const overrides: Record<string, SchemeOverride> = {};
-  base.overrides = overrides;
-  let overridden = '';
-  const sweeper = sweeperFor(library, nr * nc);
-  let k = 0;
-  let si = 0;
-  for (const [from, to] of ranges) {
+  private readonly partIds: NonNullable<SchemeOverride['partIds']> = {};
+  private readonly override: SchemeOverride = { dutyLimit: 0, partIds: this.partIds };
+  private readonly overrides: Record<string, SchemeOverride> = {};
+  private overridden = '';
+  private si = 0;
+  private readonly sweeper: LeanSweeper;
+  /** Points written so far. */
+  k = 0;
+
+  constructor(spec: NormalisedSpec, library: PartsLibrary, private readonly plan: SweepPlan, private readonly out: Float64Array, private readonly onProgress: ((done: number) => boolean | void) | undefined, private readonly every: number) {
+    this.nf = plan.fswHz.length; this.nr = plan.rectifiers.length; this.nc = plan.cores.length;
+    this.blockStart = schemeBlocks(plan).map((b) => b.start);
+    this.base = { ...spec, overrides: this.overrides };
+    this.sweeper = sweeperFor(library, this.nr * this.nc);
+  }
+
+  /** Evaluates plan indices [from, to); false once `onProgress` asked to stop. */
+  range(from: number, to: number): boolean {
+    const { plan, nf, nr, nc, blockStart, base, partIds, override, overrides, sweeper, out } = this;
+    let si = this.si;
     for (let g = from; g < to; g++) {
       while (si + 1 < blockStart.length && g >= blockStart[si + 1]!) si++;
       while (si > 0 && g < blockStart[si]!) si--;
@@ -128,20 +145,35 @@ export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: Swee
       partIds.rectifier = plan.rectifiers[ri] ?? undefined;
       partIds.core = plan.cores[ci] ?? undefined;
       override.dutyLimit = dutyLimit;
-      if (overridden !== scheme) {
-        delete overrides[overridden];
+      if (this.overridden !== scheme) {
+        delete overrides[this.overridden];
         overrides[scheme] = override;
-        overridden = scheme;
+        this.overridden = scheme;
       }
       base.fswHz = fswHz;
       const r = sweeper.evaluate(base, scheme, ri * nc + ci, g - mi * nr * nc);
+      const k = this.k++;
       const o = k * STRIDE;
       out[o] = si; out[o + 1] = fswHz; out[o + 2] = dutyLimit; out[o + 3] = r.turnsRatio;
       out[o + 4] = mains[mi] ? mi : -1; out[o + 5] = plan.rectifiers[ri] ? ri : -1; out[o + 6] = plan.cores[ci] ? ci : -1;
       out[o + 7] = r.bomCost; out[o + 8] = r.lossW; out[o + 9] = r.efficiency; out[o + 10] = r.feasible && Number.isFinite(r.bomCost) && Number.isFinite(r.lossW) ? 1 : 0;
-      k++;
-      if (onProgress && k % every === 0 && onProgress(k) === false) return k;
+      if (this.onProgress && (k + 1) % this.every === 0 && this.onProgress(k + 1) === false) { this.si = si; return false; }
     }
+    this.si = si;
+    return true;
   }
-  return k;
+}
+
+/**
+ * Evaluates the plan's points in `ranges` (default: all of them) on the engine's lean path and writes
+ * them one after the other into `out` (STRIDE numbers each; with the default range, position = plan index).
+ * Plan index order is scheme, frequency, duty limit, main switch, rectifier, core (core fastest).
+ * Points that differ only in the main switch share the engine's front stages: each (rectifier, core) pair
+ * keeps its slot, keyed by the plan index of the same point with the first main switch.
+ * `onProgress(done)` is called every `every` points; returning false stops early (the count done is returned).
+ */
+export function runSweep(spec: NormalisedSpec, library: PartsLibrary, plan: SweepPlan, out: Float64Array, onProgress?: (done: number) => boolean | void, every = 5000, ranges: readonly IndexRange[] = [[0, plan.total]]): number {
+  const walk = new Walk(spec, library, plan, out, onProgress, every);
+  for (const [from, to] of ranges) if (!walk.range(from, to)) break;
+  return walk.k;
 }

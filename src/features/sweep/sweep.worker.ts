@@ -5,9 +5,9 @@
  */
 import type { NormalisedSpec, PartsLibrary } from '../../engine';
 import { summarise } from './fronts';
-import { DEFAULT_SETTINGS, planSweep, type SweepPlan } from './plan';
+import { DEFAULT_SETTINGS, ownPlan, planSweep, type SweepPlan } from './plan';
 import type { SweepMessage, SweepRequest } from './protocol';
-import { globalIndex, rangeCount, runSweep, STRIDE } from './run';
+import { globalIndex, ownRanges, rangeCount, runSweep, STRIDE } from './run';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const post = (m: SweepMessage, transfer: Transferable[] = []): void => scope.postMessage(m, transfer);
@@ -27,6 +27,7 @@ let library: PartsLibrary | null = null;
  * over 50 ms and the warm-up takes 1–1.5 s. A Run arriving meanwhile starts at once and ends the warm-up.
  */
 const WARM_SLICE = 2048;
+
 interface WarmUp { plan: SweepPlan; out: Float64Array; done: number; points: number; startedAt: number }
 let warm: WarmUp | null = null;
 
@@ -36,7 +37,7 @@ function warmSlice(): void {
   const t0 = performance.now();
   const from = w.done % w.plan.total;
   const to = Math.min(w.plan.total, from + WARM_SLICE);
-  runSweep(spec, library, w.plan, w.out, progress, 256, [[from, to]]);
+  runSweep(spec, library, w.plan, w.out, progress, 256, ownRanges([[from, to]]));
   // The fronts of each part are found in the worker after its points: warm that code too.
   summarise(w.out, to - from, w.plan.schemes.length);
   w.done += to - from;
@@ -45,13 +46,15 @@ function warmSlice(): void {
 }
 
 /**
- * Progress of the running job, at most every 200 ms. One function for every run and the warm-up (where no
- * job is set and it reports nothing): the JIT's code for the sweep loop then calls the same target each time.
+ * Progress of the running job, at most every 200 ms. One function, taking the same path in the warm-up as in
+ * a Run, which the JIT compiles into the sweep loop: the warm-up reports too, as job WARM_JOB, which the page
+ * ignores. (When the warm-up skipped the report, a Run's first report hit code the JIT had never seen run and
+ * threw the loop's optimised code away, mid-Run.)
  */
-let job: number | null = null;
+const WARM_JOB = -1;
+let job = WARM_JOB;
 let lastProgress = 0;
 function progress(done: number): void {
-  if (job === null) return;
   const t = performance.now();
   if (t - lastProgress < 200) return;
   lastProgress = t;
@@ -64,14 +67,27 @@ function endWarmUp(): void {
   warm = null;
 }
 
+/**
+ * Each Run hands its numbers to the page by transferring their buffer, which detaches it in the worker. The
+ * first detach of a Float64Array's buffer in a worker made V8 throw away nearly all of the engine's optimised
+ * code ("dependent prototype chain changed", 60-odd functions) just after the first Run, so the second and
+ * third Runs paid for compiling it all again on the cores the sweep needs: 130–225 ms per worker against
+ * 60–100 ms. Detaching one small buffer before anything is compiled takes that event out of the way.
+ */
+function detachOnce(): void {
+  const probe = new Float64Array(STRIDE);
+  structuredClone(probe, { transfer: [probe.buffer] });
+}
+
 scope.onmessage = (event: MessageEvent<SweepRequest>): void => {
   const m = event.data;
   if (m.type === 'init') {
+    detachOnce();
     spec = m.spec;
     library = m.library;
     const startedAt = performance.now();
     try {
-      const plan = planSweep(spec, library, { ...DEFAULT_SETTINGS, schemes: spec.schemes });
+      const plan = ownPlan(planSweep(spec, library, { ...DEFAULT_SETTINGS, schemes: spec.schemes }), library);
       warm = { plan, out: new Float64Array(WARM_SLICE * STRIDE), done: 0, points: m.warmPoints, startedAt };
       if (plan.total > 0 && m.warmPoints > 0) warmSlice(); else endWarmUp();
     } catch {
@@ -85,18 +101,19 @@ scope.onmessage = (event: MessageEvent<SweepRequest>): void => {
   const receivedAt = now();
   try {
     if (!spec || !library) throw new Error('The sweep worker was asked to run before it was given the requirement set.');
-    const count = rangeCount(m.ranges);
+    const plan = ownPlan(m.plan, library), ranges = ownRanges(m.ranges);
+    const count = rangeCount(ranges);
     const data = new Float64Array(count * STRIDE);
     job = m.job;
     lastProgress = performance.now();
     try {
-      runSweep(spec, library, m.plan, data, progress, 256, m.ranges);
+      runSweep(spec, library, plan, data, progress, 256, ranges);
     } finally {
-      job = null;
+      job = WARM_JOB;
     }
     const evaluatedAt = now();
-    const part = summarise(data, count, m.plan.schemes.length);
-    const fronts = part.fronts.map((f) => f.map((local) => globalIndex(m.ranges, local)));
+    const part = summarise(data, count, plan.schemes.length);
+    const fronts = part.fronts.map((f) => f.map((local) => globalIndex(ranges, local)));
     post({
       type: 'part', job: m.job, ranges: m.ranges, data, count, feasible: part.feasible, bounds: part.bounds, fronts,
       times: { receivedAt, evaluatedAt, summarisedAt: now() },
