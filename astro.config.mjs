@@ -3,11 +3,12 @@ import { defineConfig, envField } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
+import { databaseTemplate } from './scripts/db-template.mjs';
 
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'standalone' }),
-  integrations: [react()],
+  integrations: [react(), databaseTemplate()],
   server: { host: '127.0.0.1', port: 4321 },
   security: {
     checkOrigin: false, // our middleware checks Origin for every write, JSON included

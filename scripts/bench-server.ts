@@ -66,9 +66,14 @@ try {
   clearInterval(sampler);
   const serverCpuMs = cpuMs(child.pid!) - cpuBeforeMs;
   const afterMiB = rssMiB(child.pid!);
-  console.log(`Server ready: first start ${first.readyMs.toFixed(0)} ms (creates the database, migrations, demo seed; ${firstRestMiB.toFixed(0)} MiB resident after it), restart ${readyMs.toFixed(0)} ms`);
+  console.log(`Server ready: first start ${first.readyMs.toFixed(0)} ms (an empty data folder: the database from the build's template, demo seed; ${firstRestMiB.toFixed(0)} MiB resident after it), restart ${readyMs.toFixed(0)} ms`);
   console.log(`POST /api/v1/evaluate, 100 connections, 10 s: ${result.requests.total} requests, ${result.non2xx} non-2xx, ${result.errors} errors; p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, ${result.requests.average.toFixed(0)} req/s`);
   console.log(`Server CPU time per request under that load: ${(serverCpuMs / Math.max(1, result.requests.total)).toFixed(2)} ms (${serverCpuMs} ms for ${result.requests.total} requests; one core serves at most ≈ ${Math.round((1000 * result.requests.total) / Math.max(1, serverCpuMs))} req/s)`);
+  // The floor under any route: the cheapest one (readiness, a 16-byte JSON reply, no session), same load.
+  const floorCpuBeforeMs = cpuMs(child.pid!);
+  const floor = await autocannon({ url: `${base}/api/v1/health`, connections: 100, duration: 5 });
+  const floorCpuMs = cpuMs(child.pid!) - floorCpuBeforeMs;
+  console.log(`Floor: GET /api/v1/health, 100 connections, 5 s: ${floor.requests.total} requests, ${floor.non2xx} non-2xx; p50 ${floor.latency.p50} ms, p99 ${floor.latency.p99} ms, ${floor.requests.average.toFixed(0)} req/s, ${(floorCpuMs / Math.max(1, floor.requests.total)).toFixed(2)} ms server CPU per request`);
   console.log(`Resident memory after a restart: ${restMiB.toFixed(0)} MiB at rest, ${peakMiB.toFixed(0)} MiB peak under load, ${afterMiB.toFixed(0)} MiB after`);
   console.log(`Load average (1, 5, 15 min) at the end: ${loadavg().map((l) => l.toFixed(2)).join(', ')} on this ${availableParallelism()}-core machine`);
 } finally {

@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import * as schema from './schema';
 
@@ -14,6 +14,11 @@ export interface DatabaseOptions {
   dataDir?: string | undefined;
   /** Folder with the drizzle-kit migrations (default `./drizzle` under the working directory). */
   migrationsDir?: string | undefined;
+  /**
+   * A new embedded database starts from this gzipped data folder (default `./dist/db-template.tar.gz`, written by
+   * the build; scripts/db-template.mjs) when the file exists, instead of running PostgreSQL's initdb.
+   */
+  templatePath?: string | undefined;
 }
 
 export interface Database {
@@ -40,6 +45,7 @@ export function hasSingleWriter(db: Db): boolean {
 }
 
 const defaultMigrationsDir = (): string => path.resolve(process.cwd(), 'drizzle');
+const defaultTemplatePath = (): string => path.resolve(process.cwd(), 'dist', 'db-template.tar.gz');
 
 /**
  * Opens the database and applies every pending migration before returning.
@@ -77,7 +83,11 @@ export async function openDatabase(options: DatabaseOptions): Promise<Database> 
   } else {
     const dir = path.resolve(dataDir, 'pg');
     mkdirSync(dir, { recursive: true });
-    client = await PGlite.create(dir, pgliteOptions);
+    // A new folder starts from the build's template (initdb and migrations done): a first start then takes
+    // about as long as a restart, and PGlite's heap does not grow through initdb (scripts/db-template.mjs).
+    const template = options.templatePath ?? defaultTemplatePath();
+    const fresh = !existsSync(path.join(dir, 'PG_VERSION')) && existsSync(template);
+    client = await PGlite.create(dir, fresh ? { ...pgliteOptions, loadDataDir: new Blob([readFileSync(template)]) } : pgliteOptions);
   }
   const db = drizzle(client, { schema });
   await migrate(db, { migrationsFolder });
