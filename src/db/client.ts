@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { gunzipSync } from 'node:zlib';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import * as schema from './schema';
 
@@ -83,11 +84,13 @@ export async function openDatabase(options: DatabaseOptions): Promise<Database> 
   } else {
     const dir = path.resolve(dataDir, 'pg');
     mkdirSync(dir, { recursive: true });
-    // A new folder starts from the build's template (initdb and migrations done): a first start then takes
-    // about as long as a restart, and PGlite's heap does not grow through initdb (scripts/db-template.mjs).
+    // A new folder starts from the build's template (initdb and migrations done), and PGlite's heap does not
+    // grow through initdb (scripts/db-template.mjs). Node's zlib unpacks it: PGlite given the gzipped file took
+    // 0.8–1.2 s to load it, given the plain tar 0.5 s (+ 0.1 s here).
     const template = options.templatePath ?? defaultTemplatePath();
     const fresh = !existsSync(path.join(dir, 'PG_VERSION')) && existsSync(template);
-    client = await PGlite.create(dir, fresh ? { ...pgliteOptions, loadDataDir: new Blob([readFileSync(template)]) } : pgliteOptions);
+    const loadDataDir = fresh ? new Blob([gunzipSync(readFileSync(template))], { type: 'application/x-tar' }) : undefined;
+    client = await PGlite.create(dir, loadDataDir ? { ...pgliteOptions, loadDataDir } : pgliteOptions);
   }
   const db = drizzle(client, { schema });
   await migrate(db, { migrationsFolder });

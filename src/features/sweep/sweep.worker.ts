@@ -19,12 +19,13 @@ let library: PartsLibrary | null = null;
  * Warm-up. The JIT compiles the engine for the shapes a sweep feeds it (forced parts, shared front stages)
  * only after it has run them a while, and each worker compiles its own copy on threads that share the cores
  * with the sweep. On the 2-core test machine each worker's half of a 100,000-point plan took 480–620 ms on
- * cold workers and 150–250 ms after this warm-up; a warm-up on a smaller plan of other frequencies did less.
+ * cold workers and 74–108 ms after this warm-up (with ownPlan, the progress path and detachOnce below, which
+ * keep the compiled code valid through a Run); a warm-up on a smaller plan of other frequencies did less.
  * So when the page loads, each worker runs the spec's own sweep with the default settings for the points
  * the page asks (150,000 each on 2 cores; warmPointsPerWorker in pool.ts), results discarded. It works in
  * slices of WARM_SLICE points and rests as long as each slice took: at full speed the workers took every
  * core and the page's own tasks (rendering, the settings form) ran 55–150 ms long; at half speed none went
- * over 50 ms and the warm-up takes 1–1.5 s. A Run arriving meanwhile starts at once and ends the warm-up.
+ * over 50 ms and the warm-up takes 0.8–1.5 s. A Run arriving meanwhile starts at once and ends the warm-up.
  */
 const WARM_SLICE = 2048;
 
