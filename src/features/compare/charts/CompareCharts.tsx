@@ -9,6 +9,7 @@ import { stackedBarOptions, stackTotalsPlugin, type LineAxes } from './options';
 import { buildCostStacks, buildLossStacks } from './stacks';
 import { installPrintSharpness } from './print-sharpness';
 import { drawnReporter } from './drawn';
+import { warmUpdates } from './warm';
 import { useStable } from './stable';
 import type { LineDataset } from './types';
 import { LineLegend } from './Swatch';
@@ -85,8 +86,8 @@ export default function CompareCharts({ comparison, library }: Props) {
   // Chart.js keeps the plugins it was created with: the totals read the current currency when drawn.
   const currency = useRef(cost?.currency ?? '');
   currency.current = cost?.currency ?? currency.current;
-  const lossPlugins = useMemo(() => [stackTotalsPlugin(formatWatts), drawnReporter('losses')], []);
-  const costPlugins = useMemo(() => [stackTotalsPlugin((v) => formatMoney(v, currency.current)), drawnReporter('cost')], []);
+  const lossPlugins = useMemo(() => [stackTotalsPlugin(formatWatts), drawnReporter('losses'), warmUpdates()], []);
+  const costPlugins = useMemo(() => [stackTotalsPlugin((v) => formatMoney(v, currency.current)), drawnReporter('cost'), warmUpdates()], []);
 
   if (comparison.results.length === 0) return <p className="text-sm text-muted">No scheme was evaluated, so there is nothing to chart.</p>;
   if (built instanceof Error || !stress || !duty || !loss || !cost || !lossOptions || !costOptions) {

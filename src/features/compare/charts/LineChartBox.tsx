@@ -1,6 +1,7 @@
 import { useLayoutEffect, useMemo, useRef } from 'react';
 import { Line } from 'react-chartjs-2';
 import { drawnReporter } from './drawn';
+import { warmUpdates } from './warm';
 import { lineOptions, type LineAxes } from './options';
 import { overlayPlugin } from './overlays';
 import type { LineSeries } from './types';
@@ -16,7 +17,7 @@ export function LineChartBox({ series, axes, ariaLabel, name }: { series: LineSe
   useLayoutEffect(() => {
     latest.current = series;
   }, [series]);
-  const plugins = useMemo(() => [overlayPlugin(() => latest.current), drawnReporter(name)], [name]);
+  const plugins = useMemo(() => [overlayPlugin(() => latest.current), drawnReporter(name), warmUpdates()], [name]);
   const data = useMemo(() => ({ datasets: series.lines }), [series]);
   const options = useMemo(() => lineOptions(series, axes), [series, axes]);
   return <Line data={data} options={options} plugins={plugins} role="img" aria-label={ariaLabel} />;

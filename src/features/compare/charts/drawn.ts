@@ -1,5 +1,6 @@
 import type { Plugin } from 'chart.js';
 import { markRendered } from '../../../lib/perf';
+import { isWarming } from './warm';
 
 /**
  * Reports `chart:<name>` to the edit timing (`src/lib/perf.ts`) each time the chart is drawn
@@ -9,7 +10,8 @@ export function drawnReporter(name: string): Plugin {
   let updated = false;
   return {
     id: 'resetwiseDrawn',
-    afterUpdate() {
+    afterUpdate(chart) {
+      if (isWarming(chart)) return;
       updated = true;
     },
     afterRender() {
