@@ -1,7 +1,13 @@
 import { sql } from 'drizzle-orm';
 import {
-  bigserial, boolean, check, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex,
+  bigserial, boolean, check, customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core';
+
+/** PostgreSQL bytea as a Buffer (PGlite returns a Uint8Array, node-postgres a Buffer). */
+const bytea = customType<{ data: Buffer; driverData: Uint8Array }>({
+  dataType: () => 'bytea',
+  fromDriver: (value) => Buffer.from(value),
+});
 
 const stamps = {
   createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
@@ -215,7 +221,11 @@ export type PartsLibraryVersion = typeof partsLibraryVersions.$inferSelect;
 
 // ── Uploads ───────────────────────────────────────────────────────────────────────────────
 
-/** Files kept under the data folder by random name; served only through a role check. */
+/**
+ * Uploaded files (customer specs, parts CSV; at most 2 MB of text), served only through a role check. The
+ * content is kept in the row, so every server process on a shared PostgreSQL database can serve it; rows
+ * from before that (content null) name a file under DATA_DIR/uploads by `storedName`.
+ */
 export const uploads = pgTable(
   'uploads',
   {
@@ -225,6 +235,7 @@ export const uploads = pgTable(
     mimeType: text('mime_type').notNull(),
     sha256: text('sha256').notNull(),
     storedName: text('stored_name').notNull().unique(),
+    content: bytea('content'),
     uploaderId: text('uploader_id').notNull().references(() => users.id),
     relatedType: text('related_type'),
     relatedId: text('related_id'),

@@ -98,6 +98,8 @@ export interface UploadRecord {
   mimeType: string;
   sha256: string;
   storedName: string;
+  /** The file's bytes, kept in the row. */
+  content: Buffer;
 }
 
 export interface NewLibraryVersion {

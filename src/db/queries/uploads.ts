@@ -1,4 +1,4 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns } from 'drizzle-orm';
 import type { Db } from '../client';
 import { uploads, type Upload } from '../schema';
 
@@ -7,7 +7,11 @@ export async function getUpload(db: Db, id: string): Promise<Upload | undefined>
   return rows[0];
 }
 
-/** Files that belong to one item (a spec, a library version), newest first. */
-export async function uploadsFor(db: Db, relatedType: string, relatedId: string): Promise<Upload[]> {
-  return db.select().from(uploads).where(and(eq(uploads.relatedType, relatedType), eq(uploads.relatedId, relatedId))).orderBy(desc(uploads.createdAt));
+/** An upload's row without its content (for lists). */
+export type UploadListing = Omit<Upload, 'content'>;
+
+/** Files that belong to one item (a spec, a library version), newest first; contents are not read. */
+export async function uploadsFor(db: Db, relatedType: string, relatedId: string): Promise<UploadListing[]> {
+  const { content: _content, ...listing } = getTableColumns(uploads);
+  return db.select(listing).from(uploads).where(and(eq(uploads.relatedType, relatedType), eq(uploads.relatedId, relatedId))).orderBy(desc(uploads.createdAt));
 }

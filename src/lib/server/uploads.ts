@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { UploadRecord } from '../../db/queries/parts';
 import { config } from './config';
@@ -65,23 +65,23 @@ export async function receiveTextFile(request: Request, extensions: readonly str
 }
 
 const STORED_NAME = /^[a-f0-9]{48}$/;
-const uploadDir = (): string => path.resolve(config.dataDir, 'uploads');
+const legacyUploadDir = (): string => path.resolve(config.dataDir, 'uploads');
 
-/** Writes the file under DATA_DIR/uploads with a random name; returns the row to record. */
-export async function storeFile(file: ReceivedFile): Promise<UploadRecord> {
-  const storedName = randomBytes(24).toString('hex');
-  await mkdir(uploadDir(), { recursive: true, mode: 0o700 });
-  await writeFile(path.join(uploadDir(), storedName), file.bytes, { mode: 0o600, flag: 'wx' });
-  return { filename: file.filename, sizeBytes: file.bytes.byteLength, mimeType: file.mimeType, sha256: file.sha256, storedName };
+/**
+ * The row to record for a received file, its content included: it is stored in the database with the row
+ * it belongs to, in the same transaction, so a refused or failed write leaves nothing behind, and every
+ * server process on a shared database can serve it. `storedName` is a random unique name for the row.
+ */
+export function uploadRecord(file: ReceivedFile): UploadRecord {
+  return { filename: file.filename, sizeBytes: file.bytes.byteLength, mimeType: file.mimeType, sha256: file.sha256, storedName: randomBytes(24).toString('hex'), content: Buffer.from(file.bytes) };
 }
 
-/** Reads a stored file back (the name must be one of ours, never a path). */
-export async function readStoredFile(storedName: string): Promise<Buffer> {
-  if (!STORED_NAME.test(storedName)) throw new Error('not a stored upload name');
-  return readFile(path.join(uploadDir(), storedName));
-}
-
-/** Removes a stored file whose database row was never written (a failed transaction). */
-export async function discardStoredFile(storedName: string): Promise<void> {
-  if (STORED_NAME.test(storedName)) await rm(path.join(uploadDir(), storedName), { force: true });
+/**
+ * An upload's content: from its row, or for rows written before content was kept there, from the file its
+ * stored name gives under DATA_DIR/uploads (the name must be one of ours, never a path).
+ */
+export async function uploadContent(upload: { content: Buffer | null; storedName: string }, legacyDir = legacyUploadDir()): Promise<Buffer> {
+  if (upload.content) return upload.content;
+  if (!STORED_NAME.test(upload.storedName)) throw new Error('not a stored upload name');
+  return readFile(path.join(legacyDir, upload.storedName));
 }

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { getApp } from '../../../../lib/server/app';
 import { authorize } from '../../../../lib/server/guard';
 import { fieldProblems, json, problem } from '../../../../lib/server/http';
-import { discardStoredFile, receiveTextFile, storeFile } from '../../../../lib/server/uploads';
+import { receiveTextFile, uploadRecord } from '../../../../lib/server/uploads';
 import { importQuerySchema } from '../../../../schemas/parts';
 import { currentLibrary } from '../../../../features/parts/library.server';
 import { previewImport } from '../../../../features/parts/csv-import';
@@ -37,13 +37,8 @@ export const POST: APIRoute = async ({ locals, request, url }) => {
     return json({ error: `The file has ${fields.length} problem${fields.length === 1 ? '' : 's'}; nothing was changed.`, fields, preview }, 400);
   }
   if (preview.changes.length === 0) return json({ version, changes: [], uploadId: null });
-  const upload = await storeFile(received.file);
   const outcome = await commitChanges(db, user.id, preview.changes.map(({ line: _line, ...change }) => change), {
-    baseVersion: version, upload, summary: `CSV import of ${received.file.filename}: ${summariseChanges(preview.changes)}`,
-  }).catch(async (error: unknown) => {
-    await discardStoredFile(upload.storedName);
-    throw error;
+    baseVersion: version, upload: uploadRecord(received.file), summary: `CSV import of ${received.file.filename}: ${summariseChanges(preview.changes)}`,
   });
-  if (outcome.kind !== 'written') await discardStoredFile(upload.storedName);
   return editReply(outcome);
 };

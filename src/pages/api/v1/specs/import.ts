@@ -3,7 +3,7 @@ import path from 'node:path';
 import { getApp } from '../../../../lib/server/app';
 import { authorize } from '../../../../lib/server/guard';
 import { fieldProblems, json, problem } from '../../../../lib/server/http';
-import { discardStoredFile, receiveTextFile, storeFile } from '../../../../lib/server/uploads';
+import { receiveTextFile, uploadRecord } from '../../../../lib/server/uploads';
 import { specCustomerSchema, specNameSchema } from '../../../../schemas/specs-api';
 import { createSpec, getSpec } from '../../../../db/queries/specs';
 import { uploads } from '../../../../db/schema';
@@ -37,14 +37,11 @@ export const POST: APIRoute = async ({ locals, request }) => {
   if (!requirements.ok) return problem(400, 'Some fields are not valid.', requirements.errors);
   const { db } = await getApp();
   const write = await evaluateForStorage(db, meta.name.data, meta.customer.data, requirements.value);
-  const stored = await storeFile(file);
+  const stored = uploadRecord(file);
   let uploadId = '';
   const id = await createSpec(db, write, user.id, async (tx, specId) => {
     uploadId = newId();
     await tx.insert(uploads).values({ id: uploadId, ...stored, uploaderId: user.id, relatedType: 'spec', relatedId: specId });
-  }).catch(async (error: unknown) => {
-    await discardStoredFile(stored.storedName);
-    throw error;
   });
   const created = await getSpec(db, id);
   return json({ ...toSpecJson(created!), upload: { id: uploadId, filename: stored.filename, url: `/api/v1/uploads/${uploadId}` } }, 201, { location: `/api/v1/specs/${id}` });

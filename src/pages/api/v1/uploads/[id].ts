@@ -3,7 +3,7 @@ import { getApp } from '../../../../lib/server/app';
 import { authorize } from '../../../../lib/server/guard';
 import { problem } from '../../../../lib/server/http';
 import { getUpload } from '../../../../db/queries/uploads';
-import { readStoredFile } from '../../../../lib/server/uploads';
+import { uploadContent } from '../../../../lib/server/uploads';
 import { uploadCapability } from '../../../../features/parts/upload-access';
 import { can } from '../../../../lib/roles';
 
@@ -21,7 +21,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
   if (!can(user.role, capability)) return problem(403, 'Your role does not allow this.');
   let content: Buffer;
   try {
-    content = await readStoredFile(upload.storedName);
+    content = await uploadContent(upload);
   } catch {
     return problem(404, 'The file is recorded but missing from the data folder.');
   }
