@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, describe, expect, test } from 'vitest';
-import { demoPartsLibrary, ENGINE_VERSION, evaluateNormalised, parseSpecInput, SCHEME_IDS, type SchemeId } from '../../src/engine';
+import { demoPartsLibrary, ENGINE_VERSION, evaluateNormalised, parseSpecInput, SCHEME_IDS } from '../../src/engine';
 import { demoSpecs } from '../../src/demo/specs';
 import { buildNetlist } from '../../src/features/spice/netlist';
 import { netlistPoint, type NetlistPoint } from '../../src/features/spice/operating-point';

@@ -19,7 +19,7 @@ test('the three demo examples are found', () => {
 
 describe.each(comparisons)('%s', (_name, c) => {
   test('stress series: one curve per scheme in the scheme style, equal to sweepVin, plus its rating line', () => {
-    const s = buildStressSeries(c, buildSweeps(c, demoPartsLibrary));
+    const s = buildStressSeries(buildSweeps(c, demoPartsLibrary));
     expect(s.lines.map((d) => d.scheme)).toEqual(c.results.map((r) => r.scheme));
     for (const [k, r] of c.results.entries()) {
       const line = s.lines[k]!;
@@ -50,7 +50,7 @@ describe.each(comparisons)('%s', (_name, c) => {
   });
 
   test('duty series: the switch duty from sweepVin, limit lines at dutyLimit, duty at Vin,min/max as in the result', () => {
-    const d = buildDutySeries(c, buildSweeps(c, demoPartsLibrary));
+    const d = buildDutySeries(buildSweeps(c, demoPartsLibrary));
     for (const [k, r] of c.results.entries()) {
       const line = d.lines[k]!;
       expect(line.data[0]!.y).toBeCloseTo(r.duty.atVinMin, 12);
@@ -67,13 +67,13 @@ describe.each(comparisons)('%s', (_name, c) => {
     // Cores with three times the inductance factor: Lm and Llk change, and with them the leakage share of the duty.
     const library = { ...demoPartsLibrary, cores: demoPartsLibrary.cores.map((core) => ({ ...core, alH: 3 * core.alH })) };
     const own = evaluate(c.input, library);
-    const d = buildDutySeries(own, buildSweeps(own, library));
+    const d = buildDutySeries(buildSweeps(own, library));
     for (const [k, r] of own.results.entries()) {
       expect(d.lines[k]!.data[0]!.y).toBeCloseTo(r.duty.atVinMin, 12);
       expect(d.lines[k]!.data.at(-1)!.y).toBeCloseTo(r.duty.atVinMax, 12);
     }
     // The demo library would draw other designs: the check above can tell them apart.
-    const demo = buildDutySeries(own, buildSweeps(own, demoPartsLibrary));
+    const demo = buildDutySeries(buildSweeps(own, demoPartsLibrary));
     expect(own.results.some((r, k) => Math.abs(demo.lines[k]!.data.at(-1)!.y - r.duty.atVinMax) > 1e-6)).toBe(true);
   });
 
@@ -138,8 +138,8 @@ describe.each(comparisons)('%s', (_name, c) => {
     const runs = 20;
     for (let i = 0; i < runs; i++) {
       const sweeps = buildSweeps(c, demoPartsLibrary);
-      buildStressSeries(c, sweeps);
-      buildDutySeries(c, sweeps);
+      buildStressSeries(sweeps);
+      buildDutySeries(sweeps);
       buildLossStacks(c);
       buildCostStacks(c);
       buildWaveSeries(c, c.ranking[0]!, demoPartsLibrary);

@@ -35,7 +35,7 @@ export default function CompareCharts({ comparison, library }: Props) {
   const built = useMemo(() => {
     try {
       const sweeps = buildSweeps(comparison, library);
-      return { stress: buildStressSeries(comparison, sweeps), duty: buildDutySeries(comparison, sweeps), loss: buildLossStacks(comparison), cost: buildCostStacks(comparison) };
+      return { stress: buildStressSeries(sweeps), duty: buildDutySeries(sweeps), loss: buildLossStacks(comparison), cost: buildCostStacks(comparison) };
     } catch (error) {
       return error instanceof Error ? error : new Error(String(error));
     }

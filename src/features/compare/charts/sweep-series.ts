@@ -89,7 +89,7 @@ function ranges(sweeps: SchemeSweep[], ys: number[]): Pick<LineSeries, 'xMin' | 
  * plus each scheme's chosen voltage rating as a thin dotted line. For two-switch this is the
  * voltage across each of the two switches.
  */
-export function buildStressSeries(comparison: Comparison, sweeps: SchemeSweep[]): LineSeries {
+export function buildStressSeries(sweeps: SchemeSweep[]): LineSeries {
   const lines = sweeps.map((s) => curve(s, (p) => p.switchV));
   const references: LineDataset[] = [];
   const legend: LegendEntry[] = [];
@@ -108,7 +108,7 @@ export function buildStressSeries(comparison: Comparison, sweeps: SchemeSweep[])
 }
 
 /** Duty D = K/Vin against Vin for every scheme, with each scheme's duty limit as a thin dotted line. */
-export function buildDutySeries(comparison: Comparison, sweeps: SchemeSweep[]): LineSeries {
+export function buildDutySeries(sweeps: SchemeSweep[]): LineSeries {
   const lines = sweeps.map((s) => curve(s, (p) => p.duty));
   const references = sweeps.map((s) => reference(s, s.result.dutyLimit, `${s.result.label} duty limit`));
   const legend = sweeps.map((s) => legendEntry(s, `limit ${formatDuty(s.result.dutyLimit)}`));
