@@ -126,9 +126,18 @@ describe('Sweep', () => {
     await page.waitForSelector('[data-sweep]');
     await page.getByLabel('Frequency steps (log-spaced)').fill('40');
     await page.getByLabel("Duty-limit steps (60–100 % of each scheme's limit)").fill('20');
+    // The page itself presses Cancel at the first progress report: the whole 1.25-million-point run takes only
+    // 1–3 s on warm workers, and on a busy CI machine a click sent from the test could land after it ended.
+    const pressed = page.evaluate(() => new Promise<number>((resolve) => {
+      const watch = (): void => {
+        const bar = document.querySelector<HTMLProgressElement>('[data-progress]');
+        const button = document.querySelector<HTMLButtonElement>('[data-cancel-sweep]');
+        if (bar && bar.value > 0 && button && !button.disabled) { button.click(); resolve(bar.value); } else requestAnimationFrame(watch);
+      };
+      watch();
+    }));
     await page.locator('[data-run-sweep]').click();
-    await page.waitForSelector('[data-progress]');
-    await page.locator('[data-cancel-sweep]').click();
+    expect(await pressed).toBeGreaterThan(0);
     await page.waitForSelector('[data-cancelled]');
     expect(await page.locator('[data-cancelled]').innerText()).toMatch(/Cancelled after [\d,]+ of [\d,]+ points/);
     await page.context().close();
