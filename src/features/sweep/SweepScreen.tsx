@@ -208,7 +208,7 @@ function FrontTable({ result, specId, fswHz, currency }: { result: SweepResult; 
               <tr key={i} data-front-row={p.scheme}>
                 <td><span className="mr-1 inline-block size-2 rounded-full" style={{ background: SCHEME_STYLES[p.scheme].color }} aria-hidden="true" />{SCHEME_LABELS[p.scheme]}</td>
                 <td className="tabular-nums">{p.cost.toFixed(2)} {currency}</td>
-                <td className="tabular-nums">{formatSi(p.lossW, 'W')}</td>
+                <td className="tabular-nums">{p.lossW.toFixed(2)} W</td>
                 <td className="tabular-nums">{(p.efficiency * 100).toFixed(1)} %</td>
                 <td className="tabular-nums">{formatSi(p.fswHz, 'Hz')}</td>
                 <td className="tabular-nums">{p.dutyLimit.toFixed(3)}</td>
