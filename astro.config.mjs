@@ -4,10 +4,13 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import { databaseTemplate } from './scripts/db-template.mjs';
+import { CSP_DIRECTIVES } from './scripts/http/security-headers.mjs';
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  // Middleware mode: the build starts no server itself; scripts/serve.mjs runs it behind the HTTP front
+  // (client address, body limits, security headers, graceful stop).
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), databaseTemplate()],
   server: { host: '127.0.0.1', port: 4321 },
   security: {
@@ -27,9 +30,15 @@ export default defineConfig({
       SMTP_USER: envField.string({ context: 'server', access: 'secret', optional: true }),
       SMTP_PASSWORD: envField.string({ context: 'server', access: 'secret', optional: true }),
       SMTP_SECURE: envField.enum({ context: 'server', access: 'secret', values: ['0', '1'], default: '0' }),
+      HOST: envField.string({ context: 'server', access: 'secret', default: '127.0.0.1' }),
       PORT: envField.number({ context: 'server', access: 'secret', default: 4321 }),
       MAIL_FROM: envField.string({ context: 'server', access: 'secret', default: 'Resetwise <noreply@resetwise.example>' }),
     },
   },
   vite: { plugins: [tailwindcss()] },
+  experimental: {
+    // Each page's Content-Security-Policy header with the hash of every inline script Astro writes, so pages
+    // need no 'unsafe-inline' for scripts (src/lib/server/page-csp.ts sets their style-src).
+    csp: { algorithm: 'SHA-256', directives: [...CSP_DIRECTIVES] },
+  },
 });

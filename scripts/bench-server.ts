@@ -8,8 +8,9 @@ import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 
-const entry = path.join(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
-if (!existsSync(entry)) throw new Error(`${entry} is missing: run \`npm run build\` first`);
+const built = path.join(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
+if (!existsSync(built)) throw new Error(`${built} is missing: run \`npm run build\` first`);
+const entry = 'scripts/serve.mjs'; // serves the build in RESETWISE_DIST (default dist/)
 
 const port = await new Promise<number>((resolve) => {
   const probe = createServer().listen(0, '127.0.0.1', () => {

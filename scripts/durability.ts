@@ -27,8 +27,8 @@ async function freePort(): Promise<number> {
 }
 
 async function boot(dataDir: string, port: number): Promise<ChildProcess> {
-  const entry = path.join(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
-  const child = spawn(process.execPath, [entry], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), DATA_DIR: dataDir, RESETWISE_DEMO: '1', DATABASE_URL: '' }, stdio: 'ignore' });
+  // scripts/serve.mjs serves the build in RESETWISE_DIST (default dist/).
+  const child = spawn(process.execPath, ['scripts/serve.mjs'], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), DATA_DIR: dataDir, RESETWISE_DEMO: '1', DATABASE_URL: '' }, stdio: 'ignore' });
   for (let i = 0; i < 600; i++) {
     try { if ((await fetch(`http://127.0.0.1:${port}/api/v1/health`)).ok) return child; } catch { /* starting */ }
     await new Promise((r) => setTimeout(r, 100));

@@ -30,7 +30,7 @@ let base = values.url?.replace(/\/$/, '');
 if (!base) {
   const port = await freePort();
   dataDir = mkdtempSync(path.join(tmpdir(), 'resetwise-load-'));
-  child = spawn(process.execPath, [path.join(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs')], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), DATA_DIR: dataDir, RESETWISE_DEMO: '1' }, stdio: 'ignore' });
+  child = spawn(process.execPath, ['scripts/serve.mjs'], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), DATA_DIR: dataDir, RESETWISE_DEMO: '1' }, stdio: 'ignore' });
   base = `http://127.0.0.1:${port}`;
   for (let i = 0; i < 600; i++) {
     try { if ((await fetch(`${base}/api/v1/health`)).ok) break; } catch { /* starting */ }

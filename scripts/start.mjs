@@ -33,7 +33,8 @@ if (needsBuild()) {
 
 process.env.HOST ??= '127.0.0.1';
 process.env.PORT ??= '4321';
-await import(path.join(root, 'dist/server/entry.mjs'));
+const { serve } = await import('./serve.mjs');
+await serve();
 
 const shownHost = process.env.HOST === '127.0.0.1' || process.env.HOST === '0.0.0.0' ? 'localhost' : process.env.HOST;
 const url = `http://${shownHost}:${process.env.PORT}`;

@@ -2,18 +2,11 @@ import { defineMiddleware } from 'astro:middleware';
 import { getApp } from './lib/server/app';
 import { SESSION_COOKIE, sessionIdFromToken, validateToken } from './lib/server/auth';
 import { config } from './lib/server/config';
-import { problem } from './lib/server/http';
+import { problem, withHeader } from './lib/server/http';
+import { addressProblems } from './lib/server/address-guard';
+import { withPageStyles } from './lib/server/page-csp';
 
 const WRITES = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
-
-const SECURITY_HEADERS: Record<string, string> = {
-  // Nothing is loaded from anywhere but this server (fonts ship with the app).
-  'content-security-policy':
-    "default-src 'self'; script-src 'self' 'unsafe-inline'; style-src 'self' 'unsafe-inline'; img-src 'self' data:; font-src 'self'; connect-src 'self'; frame-ancestors 'none'; base-uri 'self'; form-action 'self'",
-  'x-content-type-options': 'nosniff',
-  'referrer-policy': 'same-origin',
-  'x-frame-options': 'DENY',
-};
 
 /** Browsers send Origin (or Sec-Fetch-Site) with every write; a foreign one is refused. */
 function fromOurOrigin(request: Request, url: URL): boolean {
@@ -24,26 +17,25 @@ function fromOurOrigin(request: Request, url: URL): boolean {
   return true; // not a browser: no ambient cookie is being ridden
 }
 
-function withSecurityHeaders(response: Response, signedIn: boolean): Response {
-  // Some responses (redirects) come with immutable headers; copy those first.
-  const out = Object.isFrozen(response.headers) ? new Response(response.body, response) : response;
-  try {
-    for (const [name, value] of Object.entries(SECURITY_HEADERS)) out.headers.set(name, value);
-    if (signedIn && !out.headers.has('cache-control')) out.headers.set('cache-control', 'private, no-store');
-    return out;
-  } catch {
-    const copy = new Response(response.body, response);
-    for (const [name, value] of Object.entries(SECURITY_HEADERS)) copy.headers.set(name, value);
-    return copy;
-  }
+/** Signed-in pages and replies are never kept by a shared cache. */
+function finish(response: Response, signedIn: boolean): Response {
+  const styled = withPageStyles(response);
+  return signedIn && !styled.headers.has('cache-control') ? withHeader(styled, 'cache-control', 'private, no-store') : styled;
 }
 
-/** Identifies the user from the session cookie; nothing else is decided here. */
+/**
+ * Identifies the user from the session cookie; nothing else is decided here but what holds for every route:
+ * addresses with control characters are refused, and writes from foreign origins. The security headers of
+ * every reply, the client's address and the body size limit are the HTTP front's (scripts/http).
+ */
 export const onRequest = defineMiddleware(async (context, next) => {
   const isApi = context.url.pathname.startsWith('/api/');
   context.locals.user = null;
   context.locals.sessionId = null;
   try {
+    const address = addressProblems(context.url);
+    if (address.kind === 'path') return isApi ? problem(404, 'Nothing has this address.') : context.rewrite('/404');
+    if (address.kind === 'query') return isApi ? problem(400, 'Some query parameters are not valid.', address.fields) : context.rewrite('/404');
     if (WRITES.has(context.request.method) && !fromOurOrigin(context.request, context.url)) {
       return problem(403, 'Writes are accepted only from pages served by this Resetwise server.');
     }
@@ -67,7 +59,7 @@ export const onRequest = defineMiddleware(async (context, next) => {
     if (isApi && response.status === 404 && !response.headers.get('content-type')?.includes('json')) {
       return problem(404, 'No such API route.');
     }
-    return withSecurityHeaders(response, context.locals.user !== null);
+    return finish(response, context.locals.user !== null);
   } catch (error) {
     console.error(`[resetwise] ${context.request.method} ${context.url.pathname} failed:`, error);
     if (isApi) return problem(500, 'Something went wrong on the server. The error was logged.');

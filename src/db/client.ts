@@ -20,7 +20,19 @@ export interface DatabaseOptions {
    * the build; scripts/db-template.mjs) when the file exists, instead of running PostgreSQL's initdb.
    */
   templatePath?: string | undefined;
+  /**
+   * Work that must follow the migrations exactly once however many processes start together (the demo seed).
+   * On PostgreSQL it runs with the migrations under one advisory lock.
+   */
+  prepare?: ((db: Db) => Promise<unknown>) | undefined;
 }
+
+/**
+ * The advisory lock key every Resetwise process takes to migrate and prepare a PostgreSQL database: the second
+ * of two processes started together waits, then finds nothing left to do (two migrating at once collided on
+ * PostgreSQL's catalogue: duplicate key in pg_type).
+ */
+export const MIGRATION_LOCK_KEY = 7_305_114_226_101;
 
 export interface Database {
   db: Db;
@@ -49,7 +61,7 @@ const defaultMigrationsDir = (): string => path.resolve(process.cwd(), 'drizzle'
 const defaultTemplatePath = (): string => path.resolve(process.cwd(), 'dist', 'db-template.tar.gz');
 
 /**
- * Opens the database and applies every pending migration before returning.
+ * Opens the database and applies every pending migration (then `prepare`) before returning.
  * PGlite serialises queries and transactions on its single connection itself, so one
  * instance per process is safe for concurrent requests; never open a second one on the
  * same folder from another process.
@@ -61,8 +73,17 @@ export async function openDatabase(options: DatabaseOptions): Promise<Database> 
     const { drizzle } = await import('drizzle-orm/node-postgres');
     const { migrate } = await import('drizzle-orm/node-postgres/migrator');
     const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
+    const client = await pool.connect();
+    try {
+      await client.query('select pg_advisory_lock($1)', [MIGRATION_LOCK_KEY]);
+      const locked = drizzle(client, { schema });
+      await migrate(locked, { migrationsFolder });
+      await options.prepare?.(locked as unknown as Db);
+    } finally {
+      await client.query('select pg_advisory_unlock($1)', [MIGRATION_LOCK_KEY]).catch(() => undefined);
+      client.release();
+    }
     const db = drizzle(pool, { schema });
-    await migrate(db, { migrationsFolder });
     return { db: db as unknown as Db, kind: 'postgres', close: () => pool.end() };
   }
   const { PGlite } = await import('@electric-sql/pglite');
@@ -95,5 +116,6 @@ export async function openDatabase(options: DatabaseOptions): Promise<Database> 
   const db = drizzle(client, { schema });
   await migrate(db, { migrationsFolder });
   singleWriter.add(db);
+  await options.prepare?.(db as unknown as Db);
   return { db: db as unknown as Db, kind: 'pglite', close: () => client.close() };
 }

@@ -81,6 +81,26 @@ export const auditLog = pgTable(
 );
 export type AuditEntry = typeof auditLog.$inferSelect;
 
+/**
+ * Failed sign-ins of the last 15 minutes, one row each: the throttle counts these, so its limits hold across
+ * every server process on one database (src/lib/server/throttle.ts). `address` is the client's address key
+ * (an IPv6 client by its /64), `accountKey` the normalised e-mail, known account or not.
+ */
+export const signInFailures = pgTable(
+  'sign_in_failures',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    accountKey: text('account_key').notNull(),
+    address: text('address').notNull(),
+    failedAt: timestamp('failed_at', { withTimezone: true, mode: 'date' }).notNull(),
+  },
+  (t) => [
+    index('sign_in_failures_account_idx').on(t.accountKey, t.failedAt),
+    index('sign_in_failures_address_idx').on(t.address, t.failedAt),
+    index('sign_in_failures_at_idx').on(t.failedAt),
+  ],
+);
+
 // ── Shortlists and ballots ────────────────────────────────────────────────────────────────
 
 export const SHORTLIST_STATUSES = ['draft', 'voting', 'closed', 'decided', 'withdrawn'] as const;

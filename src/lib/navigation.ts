@@ -10,7 +10,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: '/specs', label: 'Specs', capability: 'readSpecs' },
   { href: '/compare', label: 'Compare', capability: 'runComparisons' },
-  { href: '/sweep', label: 'Sweep', capability: 'runComparisons' },
+  { href: '/sweep', label: 'Sweep', capability: 'runSweeps' },
   { href: '/shortlists', label: 'Shortlists', capability: 'readSpecs' },
   { href: '/parts', label: 'Parts library', capability: 'readParts' },
   { href: '/briefs', label: 'Briefs', capability: 'readBriefs' },

@@ -13,7 +13,7 @@ export const ROLE_SUMMARIES: Record<Role, string> = {
   admin: 'Everything; manages team members, roles and the parts library.',
   architect: 'Creates and edits requirement sets, runs comparisons and sweeps, owns shortlists and decisions.',
   engineer: 'Runs comparisons, adds shortlist candidates, casts ballots and comments.',
-  sales: 'Reads requirement sets and decided shortlists, imports customer specs, writes and sends briefs.',
+  sales: 'Reads requirement sets and decided shortlists, tries values in Compare without saving, imports customer specs, writes and sends briefs.',
 };
 
 /** Named capabilities, so pages and endpoints ask "may this role do X" instead of listing roles. */
@@ -21,7 +21,10 @@ export const CAPABILITIES = {
   manageTeam: ['admin'],
   editSpecs: ['admin', 'architect'],
   readSpecs: ['admin', 'architect', 'engineer', 'sales'],
-  runComparisons: ['admin', 'architect', 'engineer'],
+  /** Compare: open a set, try values without saving (sales quote feasibility from it), POST /evaluate. */
+  runComparisons: ['admin', 'architect', 'engineer', 'sales'],
+  /** Sweep a set's design space: engineering work, not a sales one. */
+  runSweeps: ['admin', 'architect', 'engineer'],
   readParts: ['admin', 'architect', 'engineer', 'sales'],
   editParts: ['admin'],
   importSpecs: ['admin', 'architect', 'sales'],

@@ -31,7 +31,8 @@ const TABLE: Record<string, Probe> = {
   'GET /sign-in': { path: () => '/sign-in', expect: [200, 302, 302, 302, 302] },
   'GET /specs': { path: () => '/specs', expect: PAGE(200) },
   'GET /specs/import': { path: () => '/specs/import', expect: [302, 200, 403, 200, 200] },
-  'GET /compare': { path: () => '/compare', expect: [302, 403, 200, 200, 200] },
+  // Sales try values in Compare (scratch or a saved set) but never save or sweep (issue 16).
+  'GET /compare': { path: () => '/compare', expect: PAGE(200) },
   'GET /compare/[id]': { path: () => '/compare/demo-spec-1', expect: PAGE(200) },
   'GET /shortlists': { path: () => '/shortlists', expect: PAGE(200) },
   'GET /shortlists/[id]': { path: (f) => `/shortlists/${f.shortlist}`, expect: [302, 403, 200, 200, 200] },

@@ -22,7 +22,7 @@ const expectedNav: Record<string, string[]> = {
   admin: ['Specs', 'Compare', 'Sweep', 'Shortlists', 'Parts library', 'Briefs', 'Team', 'Outbox'],
   architect: ['Specs', 'Compare', 'Sweep', 'Shortlists', 'Parts library', 'Briefs'],
   engineer: ['Specs', 'Compare', 'Sweep', 'Shortlists', 'Parts library', 'Briefs'],
-  sales: ['Specs', 'Shortlists', 'Parts library', 'Briefs'],
+  sales: ['Specs', 'Compare', 'Shortlists', 'Parts library', 'Briefs'],
 };
 
 describe('signing in through the browser', () => {

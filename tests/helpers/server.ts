@@ -7,7 +7,10 @@ import path from 'node:path';
 
 export interface RunningServer {
   url: string;
+  port: number;
   dataDir: string;
+  /** The server's process id (for its memory, or a signal). */
+  pid: number;
   output(): string;
   stop(): Promise<void>;
 }
@@ -29,9 +32,10 @@ async function freePort(): Promise<number> {
  * waits until it answers /api/v1/health. `npm test` builds first.
  */
 export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
-  // RESETWISE_DIST lets a developer test a build made with `astro build --outDir …`.
-  const entry = path.resolve(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
-  if (!existsSync(entry)) throw new Error(`${entry} is missing: run \`npm run build\` (npm test does it)`);
+  // RESETWISE_DIST lets a developer test a build made with `astro build --outDir …` (scripts/serve.mjs reads it).
+  const built = path.resolve(process.env.RESETWISE_DIST ?? 'dist', 'server/entry.mjs');
+  if (!existsSync(built)) throw new Error(`${built} is missing: run \`npm run build\` (npm test does it)`);
+  const entry = path.resolve('scripts/serve.mjs');
   const port = await freePort();
   const dataDir = env.DATA_DIR ?? mkdtempSync(path.join(tmpdir(), 'resetwise-test-'));
   // RESETWISE_TEST_DB=postgres: the server gets a fresh database on the TEST_DATABASE_URL server.
@@ -58,7 +62,9 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   }
   return {
     url,
+    port,
     dataDir,
+    pid: child.pid!,
     output: () => log,
     async stop() {
       if (child.exitCode === null) {

@@ -30,6 +30,10 @@ describe('role helper', () => {
     ['sales', 'writeBriefs', true],
     ['engineer', 'writeBriefs', false],
     ['sales', 'readSpecs', true],
+    // Issue 16: sales try values in Compare (never save, never sweep).
+    ['sales', 'runComparisons', true],
+    ['sales', 'runSweeps', false],
+    ['engineer', 'runSweeps', true],
   ])('%s may %s: %s', (role, capability, allowed) => {
     expect(can(role, capability)).toBe(allowed);
     const result = authorize(locals(role), capability);
@@ -37,11 +41,12 @@ describe('role helper', () => {
     else expect((result as Response).status).toBe(403);
   });
 
-  it('navigation: Team for admins only, Compare for everyone who runs comparisons', () => {
+  it('navigation: Team for admins only, Compare for every role, Sweep for all but sales', () => {
     for (const role of ROLES) {
       expect(navFor(role).some((item) => item.href === '/team')).toBe(role === 'admin');
       expect(navFor(role)[0]?.href).toBe('/specs');
-      expect(navFor(role).some((item) => item.href === '/compare')).toBe(role !== 'sales');
+      expect(navFor(role).some((item) => item.href === '/compare')).toBe(true);
+      expect(navFor(role).some((item) => item.href === '/sweep')).toBe(role !== 'sales');
     }
   });
 });

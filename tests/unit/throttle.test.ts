@@ -1,37 +1,33 @@
 import { describe, expect, it } from 'vitest';
-import { createSignInThrottle, FailureThrottle } from '../../src/lib/server/throttle';
+import { addressKey, SIGN_IN_POLICY, slowDownMs } from '../../src/lib/server/throttle';
 
-describe('FailureThrottle', () => {
-  it('allows attempts until the limit, then asks to wait until the oldest failure leaves the window', () => {
-    let now = 0;
-    const throttle = new FailureThrottle(3, 60_000, () => now);
-    for (let i = 0; i < 3; i++) {
-      expect(throttle.retryAfterMs('a')).toBe(0);
-      throttle.recordFailure('a');
-      now += 1_000;
-    }
-    // failures at 0, 1000, 2000; now = 3000 → the first expires at 60000
-    expect(throttle.retryAfterMs('a')).toBe(57_000);
-    expect(throttle.retryAfterMs('b')).toBe(0);
-    now = 60_001;
-    expect(throttle.retryAfterMs('a')).toBe(0);
+/** The sign-in policy's pure parts; the counting itself runs on both databases in tests/db/throttle.test.ts. */
+describe('sign-in throttle: address keys', () => {
+  it.each([
+    ['192.0.2.7', '192.0.2.7'],
+    ['::ffff:192.0.2.7', '192.0.2.7'],
+    ['2001:db8:1:2:aaaa:bbbb:cccc:dddd', '2001:db8:1:2::/64'],
+    ['2001:0db8:0001:0002::1', '2001:db8:1:2::/64'],
+    ['2001:db8::1', '2001:db8:0:0::/64'],
+    ['::1', '0:0:0:0::/64'],
+  ])('%s counts as %s', (address, key) => {
+    expect(addressKey(address)).toBe(key);
   });
 
-  it('reset clears a key', () => {
-    const throttle = new FailureThrottle(1, 60_000, () => 0);
-    throttle.recordFailure('a');
-    expect(throttle.retryAfterMs('a')).toBeGreaterThan(0);
-    throttle.reset('a');
-    expect(throttle.retryAfterMs('a')).toBe(0);
+  it('two addresses of one /64 count together, of two /64s apart', () => {
+    expect(addressKey('2001:db8:1:2::a')).toBe(addressKey('2001:db8:1:2:ffff::b'));
+    expect(addressKey('2001:db8:1:2::a')).not.toBe(addressKey('2001:db8:1:3::a'));
+  });
+});
+
+describe('sign-in throttle: the account-wide slow-down', () => {
+  it.each([
+    [0, 0], [9, 0], [10, 1_000], [14, 1_000], [15, 2_000], [20, 4_000], [25, 8_000], [30, 10_000], [500, 10_000],
+  ])('%i failures in the window: wait %i ms', (failures, ms) => {
+    expect(slowDownMs(failures)).toBe(ms);
   });
 
-  it('sign-in throttle: 5 per account, 20 per address in 15 minutes', () => {
-    const throttle = createSignInThrottle(() => 1_000_000);
-    for (let i = 0; i < 5; i++) throttle.account.recordFailure('x@example.com');
-    expect(throttle.account.retryAfterMs('x@example.com')).toBe(15 * 60 * 1000);
-    for (let i = 0; i < 19; i++) throttle.address.recordFailure('127.0.0.1');
-    expect(throttle.address.retryAfterMs('127.0.0.1')).toBe(0);
-    throttle.address.recordFailure('127.0.0.1');
-    expect(throttle.address.retryAfterMs('127.0.0.1')).toBeGreaterThan(0);
+  it('never refuses: the wait stays bounded however many failures pile up', () => {
+    expect(slowDownMs(Number.MAX_SAFE_INTEGER)).toBe(SIGN_IN_POLICY.maxDelayMs);
   });
 });

@@ -2,6 +2,7 @@ import Papa from 'papaparse';
 import { parseQuantity } from '../../lib/units';
 import { NUMERIC_FIELDS } from '../compare/fields';
 import type { FieldProblem } from '../../lib/server/http';
+import { MAX_JSON_DEPTH, nestsDeeperThan } from '../../lib/text-guard';
 
 /**
  * A customer's requirement set from a file: JSON (`{vinMinV: "36 V", …}` or
@@ -47,6 +48,8 @@ function fromRecord(record: Record<string, unknown>): SpecFileParse {
 }
 
 function fromJson(body: string): SpecFileParse {
+  // The schemas recurse: a file nested thousands deep would overflow the stack before any field is checked.
+  if (nestsDeeperThan(body, MAX_JSON_DEPTH)) return { ok: false, message: `The file nests deeper than ${MAX_JSON_DEPTH} levels; a requirement set needs only a few.` };
   let raw: unknown;
   try {
     raw = JSON.parse(body.replace(/^\uFEFF/, ''));

@@ -1,7 +1,13 @@
 import {
-  COOKIE_SECURE, DATABASE_URL, DATA_DIR, MAIL_FROM, PORT, PUBLIC_ORIGIN, RESETWISE_DEMO,
+  COOKIE_SECURE, DATABASE_URL, DATA_DIR, HOST, MAIL_FROM, PORT, PUBLIC_ORIGIN, RESETWISE_DEMO,
   SMTP_HOST, SMTP_PASSWORD, SMTP_PORT, SMTP_SECURE, SMTP_USER,
 } from 'astro:env/server';
+
+/** A listening address as people type it in a browser: loopback and "every interface" read as localhost. */
+function linkHost(host: string): string {
+  if (['', '127.0.0.1', '0.0.0.0', '::', '::1', 'localhost'].includes(host)) return 'localhost';
+  return host.includes(':') ? `[${host}]` : host;
+}
 
 /** The app's run-time configuration, read once from the environment through astro:env. */
 export const config = {
@@ -10,8 +16,11 @@ export const config = {
   demo: RESETWISE_DEMO !== '0',
   /** Extra origin allowed to send writes (the public URL behind a reverse proxy). */
   publicOrigin: PUBLIC_ORIGIN || undefined,
-  /** Base of absolute links in e-mail: PUBLIC_ORIGIN, else this server on localhost. */
-  linkOrigin: (PUBLIC_ORIGIN || `http://localhost:${PORT}`).replace(/\/$/, ''),
+  /**
+   * Base of every absolute link (share links, mail): PUBLIC_ORIGIN, else the configured host and port. Never the
+   * request's Host header, which the sender of the request chooses.
+   */
+  linkOrigin: (PUBLIC_ORIGIN || `http://${linkHost(HOST)}:${PORT}`).replace(/\/$/, ''),
   /** `auto`: Secure cookies in production builds, plain in `astro dev`. */
   secureCookie: COOKIE_SECURE === 'auto' ? import.meta.env.PROD : COOKIE_SECURE === '1',
   mail: {

@@ -1,4 +1,6 @@
 import type { z } from 'zod';
+import { controlCharactersIn, MAX_JSON_DEPTH, nestsDeeperThan } from '../text-guard';
+import limits from './body-limits.json';
 
 export interface FieldProblem {
   field: string;
@@ -31,33 +33,96 @@ export function fieldProblems(error: z.ZodError): FieldProblem[] {
   }));
 }
 
-const MAX_JSON_BYTES = 1_000_000;
+/** Largest JSON body of any route (the HTTP front refuses larger ones before they reach a route). */
+export const MAX_JSON_BYTES = limits.jsonBytes;
 
 /**
- * Reads and validates a JSON body. Any failure (wrong content type, too large, not JSON,
- * schema violations) becomes a 400 reply naming each bad field.
+ * A request body as text, read chunk by chunk and abandoned as soon as it passes `maxBytes`: a body over the limit
+ * is never held whole (the HTTP front in scripts/http refuses it earlier still; this holds under `astro dev`).
+ */
+export async function readBodyText(request: Request, maxBytes: number): Promise<{ ok: true; text: string } | { ok: false; response: Response }> {
+  const tooLarge = { ok: false as const, response: problem(413, `The body is larger than ${megabytes(maxBytes)}, the most this route accepts.`) };
+  if (Number(request.headers.get('content-length') ?? '0') > maxBytes) return tooLarge;
+  if (!request.body) return { ok: true, text: '' };
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      return tooLarge;
+    }
+    chunks.push(value);
+  }
+  return { ok: true, text: Buffer.concat(chunks, total).toString('utf8') };
+}
+
+/** `1 MB`, `2 MB`: the size limits as people say them. */
+export function megabytes(bytes: number): string {
+  const mb = bytes / (bytes % 1_000_000 === 0 ? 1_000_000 : 1024 * 1024);
+  return `${Number.isInteger(mb) ? mb : mb.toFixed(1)} MB`;
+}
+
+/**
+ * JSON text → value, refusing what no route accepts before any schema sees it: nesting deeper than
+ * MAX_JSON_DEPTH (the schemas recurse), text that is not JSON, and control characters in any string or key
+ * (PostgreSQL refuses U+0000 in text and jsonb). Shared by JSON bodies and uploaded JSON files.
+ */
+export function parseJsonText(text: string, what = 'The body'): { ok: true; value: unknown } | { ok: false; response: Response } {
+  if (nestsDeeperThan(text, MAX_JSON_DEPTH)) {
+    return { ok: false, response: problem(400, `${what} nests deeper than ${MAX_JSON_DEPTH} levels; no Resetwise request needs more than a few.`) };
+  }
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch {
+    return { ok: false, response: problem(400, `${what} is not valid JSON.`) };
+  }
+  const controls = controlCharactersIn(value);
+  if (controls.length > 0) return { ok: false, response: problem(400, 'Some fields are not valid.', controls) };
+  return { ok: true, value };
+}
+
+/**
+ * Reads and validates a JSON body (`emptyAs`: the value an empty body stands for). Any failure (wrong content type, too large, too deep, not JSON, control
+ * characters, schema violations) becomes a 4xx reply naming each bad field.
  */
 export async function readJson<S extends z.ZodType>(
   request: Request,
   schema: S,
+  options: { emptyAs?: unknown } = {},
 ): Promise<{ ok: true; data: z.output<S> } | { ok: false; response: Response }> {
   const type = request.headers.get('content-type') ?? '';
-  if (!type.toLowerCase().includes('application/json')) {
+  const body = await readBodyText(request, MAX_JSON_BYTES);
+  if (!body.ok) return body;
+  // `emptyAs`: routes whose every field is optional also take no body at all, with any content type.
+  const empty = 'emptyAs' in options && body.text.trim() === '';
+  if (!empty && !type.toLowerCase().includes('application/json')) {
     return { ok: false, response: problem(400, 'Send the body as JSON with Content-Type: application/json.') };
   }
-  const text = await request.text();
-  if (Buffer.byteLength(text) > MAX_JSON_BYTES) {
-    return { ok: false, response: problem(413, 'The body is larger than 1 MB.') };
-  }
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch {
-    return { ok: false, response: problem(400, 'The body is not valid JSON.') };
-  }
-  const parsed = schema.safeParse(raw);
+  const raw = empty ? { ok: true as const, value: options.emptyAs } : parseJsonText(body.text);
+  if (!raw.ok) return raw;
+  const parsed = schema.safeParse(raw.value);
   if (!parsed.success) {
     return { ok: false, response: problem(400, 'Some fields are not valid.', fieldProblems(parsed.error)) };
   }
   return { ok: true, data: parsed.data };
+}
+
+/**
+ * `response` with one header set. Some responses (redirects, fetched ones) carry immutable headers: those are
+ * copied into a new response first.
+ */
+export function withHeader(response: Response, name: string, value: string): Response {
+  try {
+    response.headers.set(name, value);
+    return response;
+  } catch {
+    const copy = new Response(response.body, response);
+    copy.headers.set(name, value);
+    return copy;
+  }
 }

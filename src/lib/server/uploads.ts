@@ -4,9 +4,11 @@ import path from 'node:path';
 import type { UploadRecord } from '../../db/queries/parts';
 import { config } from './config';
 import { problem } from './http';
+import { CONTROL_CHARACTER, controlMessage, firstControl } from '../text-guard';
+import limits from './body-limits.json';
 
 /** Largest file accepted by any upload route. */
-export const MAX_UPLOAD_BYTES = 2 * 1024 * 1024;
+export const MAX_UPLOAD_BYTES = limits.uploadFileBytes;
 
 export interface ReceivedFile {
   filename: string;
@@ -36,7 +38,7 @@ export async function receiveTextFile(request: Request, extensions: readonly str
   const type = request.headers.get('content-type') ?? '';
   if (!type.toLowerCase().startsWith('multipart/form-data')) return fail(400, 'Send the file as multipart/form-data in a field named "file".');
   const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > MAX_UPLOAD_BYTES + 64 * 1024) return fail(413, `The upload is ${megabytes(declared)}; files may be at most 2 MB.`);
+  if (declared > MAX_UPLOAD_BYTES + limits.multipartOverheadBytes) return fail(413, `The upload is ${megabytes(declared)}; files may be at most 2 MB.`);
   let form: FormData;
   try {
     form = await request.formData();
@@ -59,6 +61,16 @@ export async function receiveTextFile(request: Request, extensions: readonly str
     text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {
     return fail(415, `"${filename}" is not UTF-8 text. Save it as CSV UTF-8 and try again.`);
+  }
+  // The one boundary of every upload: no control character reaches a text column or jsonb from a file or a form field.
+  const control = firstControl(text);
+  if (control) {
+    const line = text.slice(0, text.search(CONTROL_CHARACTER)).split('\n').length;
+    return fail(415, `"${filename}" holds a control character (${control}) on line ${line}; save it as plain text and try again.`);
+  }
+  for (const [field, value] of form.entries()) {
+    const found = typeof value === 'string' ? firstControl(value) : null;
+    if (found) return { ok: false as const, response: problem(400, 'Some fields are not valid.', [{ field, message: controlMessage(field, found) }]) };
   }
   const mimeType = extension === 'json' ? 'application/json' : 'text/csv';
   return { ok: true, form, file: { filename, mimeType, bytes, text, sha256: createHash('sha256').update(bytes).digest('hex') } };

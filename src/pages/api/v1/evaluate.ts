@@ -9,7 +9,7 @@ import { currentLibrary } from '../../../features/parts/library.server';
 
 /** A requirement set in, the comparison out against the workspace's current parts library. */
 export const POST: APIRoute = async ({ locals, request }) => {
-  const user = authorize(locals);
+  const user = authorize(locals, 'runComparisons');
   if (user instanceof Response) return user;
   const body = await readJson(request, z.unknown());
   if (!body.ok) return body.response;

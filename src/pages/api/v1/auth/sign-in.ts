@@ -1,7 +1,8 @@
 import type { APIRoute } from 'astro';
 import { json, problem, readJson } from '../../../../lib/server/http';
 import { signInSchema } from '../../../../schemas/auth';
-import { safeNext, signIn } from '../../../../features/auth/sign-in.server';
+import { signIn } from '../../../../features/auth/sign-in.server';
+import { safeNext } from '../../../../lib/next-path';
 
 const isForm = (request: Request): boolean => (request.headers.get('content-type') ?? '').includes('application/x-www-form-urlencoded');
 
@@ -12,7 +13,7 @@ const isForm = (request: Request): boolean => (request.headers.get('content-type
 export const POST: APIRoute = async (context) => {
   if (isForm(context.request)) {
     const form = await context.request.formData();
-    const next = safeNext(form.get('next'));
+    const next = safeNext(form.get('next'), context.url.origin);
     const parsed = signInSchema.safeParse({ email: form.get('email'), password: form.get('password') });
     const back = (error: string) => context.redirect(`/sign-in?error=${error}&next=${encodeURIComponent(next)}`, 303);
     if (!parsed.success) return back('invalid');

@@ -13,7 +13,7 @@ import { briefMail } from '../../../../../features/briefs/mail';
  * `{to, cc?, message?, expiresInDays?}`: freezes the brief as the next version, makes a
  * read-only share link to it and mails both parts with the link (sales, architects, admins).
  */
-export const POST: APIRoute = async ({ locals, params, request, url }) => {
+export const POST: APIRoute = async ({ locals, params, request }) => {
   const user = authorize(locals, 'writeBriefs');
   if (user instanceof Response) return user;
   const body = await readJson(request, briefSendSchema);
@@ -27,7 +27,7 @@ export const POST: APIRoute = async ({ locals, params, request, url }) => {
   const to = body.data.to;
   const cc = body.data.cc ?? [];
   const { version, share } = await recordSend(db, id, loaded.content as unknown as Record<string, unknown>, [...to, ...cc].join(', '), { tokenHash, expiresAt }, user.id);
-  const link = shareUrl(config.publicOrigin ?? url.origin, token);
+  const link = shareUrl(config.linkOrigin, token);
   const mail = briefMail({ content: loaded.content, version: version.version, link, expiresAt, message: body.data.message, senderName: user.displayName });
   const sent = await mailer.send({ kind: 'brief', to, cc, ...mail, related: { type: 'brief', id } });
   const reply = {

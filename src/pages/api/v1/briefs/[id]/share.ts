@@ -14,11 +14,10 @@ import { z } from 'zod';
  * brief changed since its latest version, or has none, the current brief is frozen first.
  * The token is in this reply only; the server keeps its SHA-256.
  */
-export const POST: APIRoute = async ({ locals, params, request, url }) => {
+export const POST: APIRoute = async ({ locals, params, request }) => {
   const user = authorize(locals, 'writeBriefs');
   if (user instanceof Response) return user;
-  const empty = (await request.clone().text()).trim() === '';
-  const body = empty ? { ok: true as const, data: {} as { expiresInDays?: number | undefined } } : await readJson(request, briefShareSchema);
+  const body = await readJson(request, briefShareSchema, { emptyAs: {} });
   if (!body.ok) return body.response;
   const { db } = await getApp();
   const id = params.id ?? '';
@@ -28,7 +27,7 @@ export const POST: APIRoute = async ({ locals, params, request, url }) => {
   const expiresAt = shareExpiry(body.data.expiresInDays);
   const content = loaded.content as unknown as Record<string, unknown>;
   const { version, share, frozeNew } = await recordShare(db, id, content, (latest) => sameContent(latest, content), { tokenHash, expiresAt }, user.id);
-  return json({ version: version.version, frozeNewVersion: frozeNew, share: { id: share.id, url: shareUrl(config.publicOrigin ?? url.origin, token), expiresAt: expiresAt.toISOString() } }, 201);
+  return json({ version: version.version, frozeNewVersion: frozeNew, share: { id: share.id, url: shareUrl(config.linkOrigin, token), expiresAt: expiresAt.toISOString() } }, 201);
 };
 
 const revokeQuery = z.strictObject({ shareId: z.string().min(1, { error: 'shareId must not be empty' }).optional() });
