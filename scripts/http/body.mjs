@@ -12,9 +12,18 @@ export function loadBodyLimits() {
 
 export const METHODS_WITH_BODIES = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
+const isUpload = (pathname, limits) => limits.uploadRoutes.includes(pathname.replace(/\/+$/, ''));
+
 /** Largest body `pathname` accepts: uploads take a file plus the multipart framing, every other route JSON. */
 export function bodyLimit(pathname, limits) {
-  return limits.uploadRoutes.includes(pathname.replace(/\/+$/, '')) ? limits.uploadFileBytes + limits.multipartOverheadBytes : limits.jsonBytes;
+  return isUpload(pathname, limits) ? limits.uploadFileBytes + limits.multipartOverheadBytes : limits.jsonBytes;
+}
+
+/** The refusal of a body over `pathname`'s limit, in the words of that route. */
+export function tooLargeMessage(pathname, limits) {
+  return isUpload(pathname, limits)
+    ? `The upload is larger than this route accepts: files may be at most ${megabytes(limits.uploadFileBytes)}.`
+    : `The body is larger than ${megabytes(limits.jsonBytes)}, the most this route accepts.`;
 }
 
 /** `1 MB`, `2.1 MB`: as people say sizes. */

@@ -7,7 +7,7 @@
 // - a graceful stop: on SIGTERM/SIGINT no new requests, in-flight ones finish (at most 10 s), the database closes.
 import http from 'node:http';
 import https from 'node:https';
-import { bodyIterable, bodyLimit, megabytes, METHODS_WITH_BODIES, readLimitedBody } from './body.mjs';
+import { bodyIterable, bodyLimit, METHODS_WITH_BODIES, readLimitedBody, tooLargeMessage } from './body.mjs';
 import { resolveClient } from './client-address.mjs';
 import { securityHeaders } from './security-headers.mjs';
 import { createStaticFiles } from './static-files.mjs';
@@ -76,7 +76,7 @@ export function createFront({ app, clientDir, limits, trustedProxies, closeApp, 
       const limit = bodyLimit(pathname, limits);
       const tooLarge = () => {
         lingeringClose(req.socket);
-        replyJson(res, 413, { error: `The body is larger than ${megabytes(limit)}, the most this route accepts.` }, { connection: 'close' });
+        replyJson(res, 413, { error: tooLargeMessage(pathname, limits) }, { connection: 'close' });
       };
       if (Number(req.headers['content-length'] ?? 0) > limit) return tooLarge();
       const body = await readLimitedBody(req, limit);

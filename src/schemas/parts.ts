@@ -1,3 +1,4 @@
+import './zod-browser';
 import { z } from 'zod';
 import { CATEGORIES, CATEGORY_KEYS, MAX_TIERS, PART_STATUSES, type CategoryInfo, type PartField } from '../features/parts/categories';
 import type { PartCategory, PartsLibrary } from '../engine/parts/types';

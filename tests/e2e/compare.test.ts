@@ -170,18 +170,27 @@ describe('Compare in the browser', () => {
     await page.context().close();
   });
 
-  it('sales: the form is read-only and there is no save', async () => {
+  it('sales: tries values on a saved set (typed, every card follows), with no save and no sweep', async () => {
     const page = await signedInPage('sales@resetwise.example');
+    expect(await page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name: 'Sweep' }).count()).toBe(0);
     await page.getByRole('link', { name: /24 V rail to 5 V/ }).click();
     await page.locator('[data-scheme-card="two-switch"]').waitFor();
-    expect(await page.getByLabel('Input maximum').getAttribute('readonly')).not.toBeNull();
+    const vinMax = page.getByLabel('Input maximum');
+    expect(await vinMax.getAttribute('readonly')).toBeNull();
+    const before = await switchPeaks(page);
+    await vinMax.click();
+    await vinMax.press('Control+A');
+    await vinMax.pressSequentially('40 V');
+    await expect.poll(async () => (await switchPeaks(page))['two-switch']).toBe('40 V');
+    expect((await switchPeaks(page))['two-switch']).not.toBe(before['two-switch']);
     expect(await page.getByRole('button', { name: 'Save', exact: true }).count()).toBe(0);
-    expect(await page.getByText('read-only').count()).toBeGreaterThan(0);
+    await page.getByText('You can try values here; only architects and admins save requirement sets.').waitFor();
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-sales.png'), fullPage: true });
     await page.locator('[data-charts]').scrollIntoViewIfNeeded();
     for (const name of CHARTS) await page.locator(`[data-chart="${name}"] canvas`).waitFor();
     await page.locator('[data-charts]').screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-sales-charts.png') });
-    expect((await page.goto(`${server.url}/compare`))?.status()).toBe(403);
+    expect((await page.goto(`${server.url}/compare`))?.status()).toBe(200);
+    expect((await page.goto(`${server.url}/sweep`))?.status()).toBe(403);
     await page.context().close();
   });
 });

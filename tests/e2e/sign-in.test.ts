@@ -103,4 +103,46 @@ describe('signing in through the browser', () => {
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'team-added.png'), fullPage: true });
     await context.close();
   });
+
+  // Issue 16: the tab survives the page's own check and the browser drops it, which made `//evil.example`.
+  it.each([true, false])('with a tab in next (/%%09/evil.example) the browser stays on this server, JavaScript on: %s', async (javaScriptEnabled) => {
+    const context = await browser.newContext({ javaScriptEnabled });
+    const page = await context.newPage();
+    await page.goto(`${server.url}/sign-in?next=%2F%09%2Fevil.example%2Fsteal`);
+    if (javaScriptEnabled) await islandsHydrated(page);
+    await page.getByLabel('E-mail').fill('engineer@resetwise.example');
+    await page.getByLabel('Password').fill('resetwise-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => url.pathname !== '/sign-in');
+    expect(new URL(page.url()).origin).toBe(server.url);
+    await context.close();
+  });
+
+  it('no screen breaks its Content-Security-Policy (no inline script is blocked, workers start)', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const violations: string[] = [];
+    page.on('console', (message) => {
+      if (/Content Security Policy/i.test(message.text())) violations.push(`${page.url()}: ${message.text()}`);
+    });
+    await page.addInitScript(() => {
+      document.addEventListener('securitypolicyviolation', (event) => console.error(`Content Security Policy violation: ${event.violatedDirective} ${event.blockedURI}`));
+    });
+    await page.goto(`${server.url}/sign-in`);
+    await islandsHydrated(page);
+    await page.getByLabel('E-mail').fill('admin@resetwise.example');
+    await page.getByLabel('Password').fill('resetwise-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => url.pathname === '/specs');
+    for (const screen of ['/specs', '/compare', '/compare/demo-spec-1', '/sweep/demo-spec-1', '/shortlists', '/parts', '/parts/history', '/briefs', '/team', '/outbox', '/specs/import', '/no/such/page']) {
+      await page.goto(`${server.url}${screen}`);
+      await islandsHydrated(page);
+      await page.waitForLoadState('networkidle');
+    }
+    await page.goto(`${server.url}/sweep/demo-spec-1`);
+    // The workers report their warm-up: they loaded and ran under the page's policy.
+    await page.waitForFunction(() => ((window as unknown as { __sweepWarmedMs?: number[] }).__sweepWarmedMs ?? []).length > 0, undefined, { timeout: 60_000 });
+    expect(violations).toEqual([]);
+    await context.close();
+  });
 });
