@@ -105,6 +105,17 @@ export function createFront({ app, clientDir, limits, trustedProxies, closeApp, 
   };
   const server = tls ? https.createServer(tls, listener) : http.createServer(listener);
   server.requestTimeout = 120_000;
+  // What Node's parser refuses before a request exists (an address or headers over 16 KB, broken HTTP) still
+  // gets a JSON reason and the security headers, not an empty reply.
+  server.on('clientError', (error, socket) => {
+    if (!socket.writable || error.code === 'ECONNRESET') return socket.destroy();
+    const [status, reason, message] = error.code === 'HPE_HEADER_OVERFLOW'
+      ? [431, 'Request Header Fields Too Large', 'The address or the headers of the request are longer than 16 KB.']
+      : error.code === 'ERR_HTTP_REQUEST_TIMEOUT' ? [408, 'Request Timeout', 'The request took too long to arrive.'] : [400, 'Bad Request', 'The request is not valid HTTP.'];
+    const body = JSON.stringify({ error: message });
+    const headers = { ...securityHeaders({ https: Boolean(socket.encrypted) }), 'content-type': 'application/json; charset=utf-8', 'content-length': Buffer.byteLength(body), connection: 'close' };
+    socket.end(`HTTP/1.1 ${status} ${reason}\r\n${Object.entries(headers).map(([k, v]) => `${k}: ${v}`).join('\r\n')}\r\n\r\n${body}`);
+  });
 
   /** Stops accepting, lets in-flight requests finish (at most drainMs), closes the app. Resolves once all is closed. */
   function stop() {

@@ -23,7 +23,9 @@ export function rawRequest(url: string, path: string, init: RawInit = {}): Promi
   return new Promise((resolve, reject) => {
     const request = http.request(
       {
-        host: target.hostname, port: target.port, path, method: init.method ?? 'GET', headers: init.headers ?? {},
+        host: target.hostname, port: target.port, path, method: init.method ?? 'GET',
+        // Node frames a DELETE body neither by length nor by chunks unless told: give every body its length.
+        headers: { ...(init.body !== undefined ? { 'content-length': String(Buffer.byteLength(init.body)) } : {}), ...init.headers },
         ...(init.localAddress ? { localAddress: init.localAddress } : {}), agent: false,
       },
       (response) => {
