@@ -11,6 +11,10 @@ export interface RunningServer {
   dataDir: string;
   /** The server's process id (for its memory, or a signal). */
   pid: number;
+  /** Every status /api/v1/health answered while the server was starting (connection refusals not counted). */
+  readyStatuses: number[];
+  /** Sends `signal` and resolves with the exit code once the process has ended. */
+  kill(signal: NodeJS.Signals): Promise<number | null>;
   output(): string;
   stop(): Promise<void>;
 }
@@ -50,10 +54,14 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   child.stderr?.on('data', (chunk: Buffer) => (log += chunk.toString()));
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 60_000;
+  const readyStatuses: number[] = [];
+  const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code)));
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited early:\n${log}`);
     try {
-      if ((await fetch(`${url}/api/v1/health`)).ok) break;
+      const health = await fetch(`${url}/api/v1/health`);
+      readyStatuses.push(health.status);
+      if (health.ok) break;
     } catch {
       // not listening yet
     }
@@ -65,7 +73,12 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
     port,
     dataDir,
     pid: child.pid!,
+    readyStatuses,
     output: () => log,
+    async kill(signal) {
+      if (child.exitCode === null) child.kill(signal);
+      return exited;
+    },
     async stop() {
       if (child.exitCode === null) {
         const exited = new Promise((r) => child.once('exit', r));
@@ -78,7 +91,7 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   };
 }
 
-async function freshPostgresDatabase(): Promise<{ url: string; drop(): Promise<void> }> {
+export async function freshPostgresDatabase(): Promise<{ url: string; drop(): Promise<void> }> {
   const serverUrl = process.env.TEST_DATABASE_URL;
   if (!serverUrl) throw new Error('RESETWISE_TEST_DB=postgres needs TEST_DATABASE_URL');
   const { default: pg } = await import('pg');

@@ -1,7 +1,7 @@
 import { and, eq, inArray, isNull, lte, gt } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { ballots, candidates, shortlists, shortlistVoters, specs, users } from '../../db/schema';
-import type { Mailer } from '../../lib/server/mail';
+import { sendAll, type Mailer } from '../../lib/server/mail';
 import { SCHEME_LABELS, type SchemeId } from '../../engine';
 import { votingOpenedMail, votingReminderMail, type VotingMailFacts } from './mail';
 
@@ -26,7 +26,7 @@ export async function notifyVotingOpened(db: Db, mailer: Mailer, shortlistId: st
   const info = await facts(db, shortlistId, origin);
   if (!info || voterIds.length === 0) return 0;
   const recipients = await db.select({ email: users.email }).from(users).where(inArray(users.id, voterIds));
-  for (const r of recipients) await mailer.send(votingOpenedMail(r.email, info));
+  await sendAll(mailer, recipients.map((r) => votingOpenedMail(r.email, info)));
   return recipients.length;
 }
 
@@ -51,10 +51,9 @@ export async function sendDueReminders(db: Db, mailer: Mailer, origin: string, n
       .innerJoin(users, eq(users.id, shortlistVoters.userId))
       .where(eq(shortlistVoters.shortlistId, id));
     const voted = new Set((await db.select({ voterId: ballots.voterId }).from(ballots).where(eq(ballots.shortlistId, id))).map((b) => b.voterId));
-    for (const p of pending.filter((p) => !voted.has(p.voterId))) {
-      await mailer.send(votingReminderMail(p.email, info));
-      sent += 1;
-    }
+    const unvoted = pending.filter((p) => !voted.has(p.voterId));
+    await sendAll(mailer, unvoted.map((p) => votingReminderMail(p.email, info)));
+    sent += unvoted.length;
   }
   return sent;
 }
