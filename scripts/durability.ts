@@ -1,7 +1,8 @@
-// `npm run durability`: starts the built server on a temporary data folder, runs concurrent
-// writes (spec saves, ballots, new members), kills the server with SIGKILL in the middle,
-// restarts it on the same folder and checks that every write that got a 2xx reply is there
-// and that the data is consistent. RESETWISE_DIST names another build folder.
+// `npm run durability [-- ROUNDS [SIGTERM]]`: starts the built server on a temporary data folder, runs
+// concurrent writes (spec saves, ballots, new members), kills the server with SIGKILL (or stops it with
+// SIGTERM, which must end in exit code 0) in the middle, restarts it on the same folder and checks that
+// every write that got a 2xx reply is there and that the data is consistent. RESETWISE_DIST names
+// another build folder.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { once } from 'node:events';
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -37,7 +38,7 @@ async function boot(dataDir: string, port: number): Promise<ChildProcess> {
 }
 
 /** Runs `rounds` kill-and-restart rounds; returns what was checked and any problem found. */
-export async function runDurability(rounds = 2): Promise<DurabilityReport> {
+export async function runDurability(rounds = 2, signal: 'SIGKILL' | 'SIGTERM' = 'SIGKILL'): Promise<DurabilityReport> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'resetwise-durability-'));
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
@@ -114,10 +115,12 @@ export async function runDurability(rounds = 2): Promise<DurabilityReport> {
         await new Promise((r) => setTimeout(r, 100));
       }
       await new Promise((r) => setTimeout(r, Math.random() * 300));
-      server.kill('SIGKILL'); // in the middle of the writes
+      const exited = server.exitCode === null && server.signalCode === null ? once(server, 'exit') : Promise.resolve([server.exitCode]);
+      server.kill(signal); // in the middle of the writes
       stop = true;
       await Promise.allSettled([specWriter, memberWriter, ...ballotWriters]);
-      if (server.exitCode === null && server.signalCode === null) await once(server, 'exit');
+      const [code] = await exited;
+      if (signal === 'SIGTERM' && code !== 0) report.problems.push(`round ${round}: the server exited with ${String(code)} after SIGTERM, not 0`);
       server = await boot(dataDir, port);
 
       // Every acknowledged write must be there.
@@ -152,8 +155,9 @@ export async function runDurability(rounds = 2): Promise<DurabilityReport> {
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {
-  const report = await runDurability(Number(process.argv[2] ?? 3));
-  console.log(`Durability: ${report.rounds} SIGKILL rounds; acknowledged ${report.acknowledged.specSaves} spec saves, ${report.acknowledged.ballots} ballots, ${report.acknowledged.members} new members; ${report.unacknowledged} writes cut off unacknowledged`);
+  const signal = process.argv[3] === 'SIGTERM' ? 'SIGTERM' : 'SIGKILL';
+  const report = await runDurability(Number(process.argv[2] ?? 3), signal);
+  console.log(`Durability: ${report.rounds} ${signal} rounds; acknowledged ${report.acknowledged.specSaves} spec saves, ${report.acknowledged.ballots} ballots, ${report.acknowledged.members} new members; ${report.unacknowledged} writes cut off unacknowledged`);
   for (const problem of report.problems) console.error(`LOST: ${problem}`);
   console.log(report.problems.length === 0 ? 'Every acknowledged write survived.' : `${report.problems.length} problem(s).`);
   process.exitCode = report.problems.length === 0 ? 0 : 1;
