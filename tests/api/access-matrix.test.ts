@@ -41,6 +41,7 @@ const TABLE: Record<string, Probe> = {
   'GET /share/[token]': { path: () => '/share/not-a-real-token-0123456789abcdef', expect: [404, 404, 404, 404, 404] },
   'GET /parts': { path: () => '/parts', expect: PAGE(200) },
   'GET /parts/history': { path: () => '/parts/history', expect: PAGE(200) },
+  // Sweep is engineering work: sales never sweep (issue 16).
   'GET /sweep': { path: () => '/sweep', expect: [302, 403, 200, 200, 200] },
   'GET /sweep/[id]': { path: () => '/sweep/demo-spec-1', expect: [302, 403, 200, 200, 200] },
   'GET /team': { path: () => '/team', expect: [302, 403, 403, 403, 200] },
@@ -57,7 +58,7 @@ const TABLE: Record<string, Probe> = {
   'PATCH /api/v1/users/[id]': { path: () => '/api/v1/users/demo-engineer3', body: 'probe', expect: [401, 403, 403, 403, 400] },
   'GET /api/v1/outbox': { path: () => '/api/v1/outbox', expect: [401, 403, 403, 403, 200] },
 
-  // Requirement sets and comparisons: all read; architects and admins write.
+  // Requirement sets and comparisons: all read and try values (sales included); architects and admins write.
   'POST /api/v1/evaluate': { path: () => '/api/v1/evaluate', body: 'probe', expect: ALL(400) },
   'GET /api/v1/specs': { path: () => '/api/v1/specs', expect: ALL(200) },
   'POST /api/v1/specs': { path: () => '/api/v1/specs', body: 'probe', expect: [401, 403, 403, 400, 400] },

@@ -185,6 +185,7 @@ describe('Compare in the browser', () => {
     expect((await switchPeaks(page))['two-switch']).not.toBe(before['two-switch']);
     expect(await page.getByRole('button', { name: 'Save', exact: true }).count()).toBe(0);
     await page.getByText('You can try values here; only architects and admins save requirement sets.').waitFor();
+    await expect.poll(() => page.locator('[data-save-state]').textContent()).toMatch(/^Trying values · saved version \d+ unchanged$/);
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'compare-sales.png'), fullPage: true });
     await page.locator('[data-charts]').scrollIntoViewIfNeeded();
     for (const name of CHARTS) await page.locator(`[data-chart="${name}"] canvas`).waitFor();

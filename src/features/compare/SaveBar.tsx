@@ -23,7 +23,9 @@ export default function SaveBar({ canSave }: { canSave: boolean }) {
   const { comparison, requirements } = useStore($evaluation);
   const meta = useStore($draftMeta);
   const stem = fileStem(meta.name);
-  const state = saved.status === 'saving' ? 'Saving…' : saved.status === 'conflict' ? 'Conflict' : dirty ? 'Unsaved changes' : saved.specId ? `Saved · version ${saved.version}` : 'Not saved (scratch comparison)';
+  // Those who may not save (engineers, sales) are trying values: say so, rather than "unsaved", which asks for a save.
+  const changed = canSave || !saved.specId ? 'Unsaved changes' : `Trying values · saved version ${saved.version} unchanged`;
+  const state = saved.status === 'saving' ? 'Saving…' : saved.status === 'conflict' ? 'Conflict' : dirty ? changed : saved.specId ? `Saved · version ${saved.version}` : 'Not saved (scratch comparison)';
   return (
     <div className="card flex flex-wrap items-center gap-2 px-3 py-2" data-save-bar>
       <span
