@@ -53,7 +53,19 @@ export const HOT_C = 100;
 export const CAP_TOLERANCE = 0.2;
 /** Clamp/snubber resistor power used at ≤ 50 % of rating. [CP] */
 export const RESISTOR_POWER_DERATING = 0.5;
-/** Minimum on-time a controller achieves. [CP] */
-export const MIN_ON_TIME_S = 100e-9;
+/** Leading-edge blanking of the current sense, during which the controller cannot end the on time. [CP] */
+export const LEADING_EDGE_BLANKING_S = 100e-9;
+/** Controller propagation and minimum pulse after blanking. [CP] */
+export const CONTROLLER_MIN_ON_TIME_S = 150e-9;
+/** Shortest on time regulated reliably: blanking plus the controller's minimum (250 ns). [CP] */
+export const MIN_ON_TIME_S = LEADING_EDGE_BLANKING_S + CONTROLLER_MIN_ON_TIME_S;
+/** Efficiency below which a design is flagged whatever the target: it dissipates over 40 % of its output. [CP] */
+export const EFFICIENCY_FLOOR = 0.7;
+/**
+ * Frequency range over which a three-parameter Steinmetz fit of a power ferrite is trusted: such fits hold over
+ * roughly a decade around the frequency they were made at (the demo library's generic fit: 25–500 kHz). [CP]
+ */
+export const STEINMETZ_FIT_MIN_HZ = 25e3;
+export const STEINMETZ_FIT_MAX_HZ = 500e3;
 /** Voltage margin reported as small when stress uses more than this share of the derated rating. [CP] */
 export const SMALL_MARGIN_SHARE = 0.95;

@@ -1,4 +1,6 @@
-import { MIN_ON_TIME_S, SMALL_MARGIN_SHARE } from './assumptions';
+import {
+  CONTROLLER_MIN_ON_TIME_S, EFFICIENCY_FLOOR, LEADING_EDGE_BLANKING_S, MIN_ON_TIME_S, SMALL_MARGIN_SHARE, STEINMETZ_FIT_MAX_HZ, STEINMETZ_FIT_MIN_HZ,
+} from './assumptions';
 import type { Design, FailCode } from './design/types';
 import type { ResetSchemeModel } from './schemes/types';
 
@@ -17,7 +19,9 @@ function failMessage(code: FailCode, d: Design): string {
   const s = d.spec;
   switch (code) {
     case 'duty-limit-above-reset': return `duty limit ${f3(d.dutyLimit)} is above the reset limit ${f3(d.resetDutyLimit)}: the core would not reset and walks into saturation`;
-    case 'duty-cannot-reach-output': return `at ${s.vinMinV} V the output needs duty ${f3(d.dutyAtVinMin)}, above the limit ${f3(d.dutyLimit)}: raise the turns ratio or the input minimum`;
+    case 'duty-cannot-reach-output': return d.dutyAtVinMin >= 1
+      ? `the output is not reachable at ${s.vinMinV} V: with turns ratio ${f3(d.turnsRatio)} even a switch that never turned off would not give ${s.voutV} V (the limit is ${f3(d.dutyLimit)}): raise the turns ratio or the input minimum`
+      : `at ${s.vinMinV} V the output needs duty ${f3(d.dutyAtVinMin)}, above the limit ${f3(d.dutyLimit)}: raise the turns ratio or the input minimum`;
     case 'no-switch-for-stress': return `no MOSFET in the library is rated for ${f1(d.switchStressV)} V stress at ${pct(s.voltageDerating)} derating (needs ${f1(d.switchStressV / s.voltageDerating)} V)`;
     case 'no-aux-switch': return `no ${s.activeClampVariant === 'low-side' ? 'P-channel' : 'N-channel'} clamp switch in the library is rated for ${f1(d.switchStressV / s.voltageDerating)} V`;
     case 'no-rectifier': return `no ${s.rectifier === 'synchronous' ? 'synchronous-rectifier MOSFET' : 'rectifier'} in the library blocks ${f1(Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating)} V at ${f1(s.ioutA)} A`;
@@ -56,7 +60,15 @@ export function findingsOf(d: Design, model: ResetSchemeModel): Finding[] {
     out.push({ severity: 'warn', code: 'window-nearly-full', message: `windings fill ${pct(d.windowFill)} of the usable window` });
   }
   const tOnMinS = d.dutyAtVinMax / s.fswHz;
-  if (tOnMinS < MIN_ON_TIME_S) out.push({ severity: 'warn', code: 'short-on-time', message: `on-time at ${s.vinMaxV} V is ${f1(tOnMinS * 1e9)} ns, near a controller's minimum` });
+  if (tOnMinS < MIN_ON_TIME_S) {
+    out.push({ severity: 'warn', code: 'short-on-time', message: `on-time at ${s.vinMaxV} V is ${f1(tOnMinS * 1e9)} ns, below the ${f1(MIN_ON_TIME_S * 1e9)} ns a controller regulates reliably (${f1(LEADING_EDGE_BLANKING_S * 1e9)} ns leading-edge blanking + ${f1(CONTROLLER_MIN_ON_TIME_S * 1e9)} ns minimum on-time): expect pulse skipping at high line; lower fs or narrow the input range` });
+  }
+  if (d.core && d.efficiency < EFFICIENCY_FLOOR) {
+    out.push({ severity: 'warn', code: 'low-efficiency', message: `efficiency ${pct(d.efficiency)} at ${s.vinNomV} V, full load is below ${pct(EFFICIENCY_FLOOR)}: the losses (${f1(d.lossesW.total)} W) are over ${pct((1 - EFFICIENCY_FLOOR) / EFFICIENCY_FLOOR)} of the output, whatever the target` });
+  }
+  if (d.core && (s.fswHz < STEINMETZ_FIT_MIN_HZ || s.fswHz > STEINMETZ_FIT_MAX_HZ)) {
+    out.push({ severity: 'warn', code: 'core-data-frequency', message: `${f1(s.fswHz / 1e3)} kHz is outside the ${f1(STEINMETZ_FIT_MIN_HZ / 1e3)}–${f1(STEINMETZ_FIT_MAX_HZ / 1e3)} kHz range the core material's loss fit is trusted over: the core loss (${f1(d.coreLossW)} W) is an extrapolation` });
+  }
   if (d.rippleA / 2 > 0.1 * s.ioutA) {
     out.push({ severity: 'info', code: 'dcm-at-light-load', message: `the output inductor enters discontinuous conduction below ${pct(d.rippleA / 2 / s.ioutA)} load at ${s.vinMaxV} V` });
   }
@@ -65,6 +77,9 @@ export function findingsOf(d: Design, model: ResetSchemeModel): Finding[] {
   }
   if (model.transientDuty(d) >= d.dutyLimit - 1e-9 && d.transientV > d.switchPeakV * 1.001) {
     out.push({ severity: 'info', code: 'high-line-transient', message: `if duty reaches ${f3(d.dutyLimit)} at ${s.vinMaxV} V before the loop settles, the switch sees ${f1(d.transientV)} V; the rating covers it` });
+  }
+  if (d.core && d.fluxLimitedBy === 'transient' && model.transientDuty(d) >= d.dutyLimit - 1e-9) {
+    out.push({ severity: 'info', code: 'turns-set-by-transient', message: `the primary turns (${d.turnsPrimary}) are set by the high-line transient, not by core loss or leakage: if duty reaches ${f3(d.dutyLimit)} at ${s.vinMaxV} V the flux must stay below saturation, so the steady swing is held to ${f3(d.deltaBT)} T; a volt-second (line feed-forward) duty clamp would allow fewer turns, and with them less leakage and copper` });
   }
   if (d.scheme === 'active-clamp') {
     out.push({ severity: 'info', code: 'volt-second-clamp', message: 'assumes a line feed-forward (volt-second) duty clamp; without it a high-line transient overstresses the switch and walks the core' });

@@ -1,6 +1,7 @@
 import type { NormalisedSpec } from '../schemas/spec';
 import { commutationDutyAt, rippleAtA, switchDutyAt } from './design/duty';
 import { designScheme } from './design/pipeline';
+import { magnetizingStartAt } from './design/stress';
 import type { Design } from './design/types';
 import { indexLibrary } from './parts/index-library';
 import { demoPartsLibrary } from './parts/demo-library';
@@ -29,15 +30,16 @@ export interface Waveforms {
 const ARC_SAMPLES = 12;
 
 /** Reset interval and shape of the drain voltage during the off time for one scheme (derived by volt-second balance on the magnetizing inductance). */
-function offShape(d: Design, vinV: number, tOffS: number): { tResetS: number; vReset: (x: number) => number; vAfter: number; imAt: (x: number) => number; vLmOff?: number } {
+function offShape(d: Design, vinV: number, tOffS: number, imEnd: number): { tResetS: number; vReset: (x: number) => number; vAfter: number; imAt: (x: number) => number; vLmOff?: number } {
   const model = schemeModel(d.scheme);
-  const im = d.magnetizingPeakA;
+  const im = imEnd;
+  const swing = d.magnetizingSwingA;
   const kV = d.kV;
   const tS = 1 / d.spec.fswHz;
   switch (d.scheme) {
     case 'active-clamp':
       // Cc holds Vin·D/(1 − D) across Lm + Llk; Lm itself resets with K over the off time (the rest sits on Llk).
-      return { tResetS: tOffS, vReset: () => model.offStateV(d, vinV), vAfter: model.offStateV(d, vinV), imAt: (x) => im - (2 * im * x) / tOffS, vLmOff: (kV * tS) / tOffS };
+      return { tResetS: tOffS, vReset: () => model.offStateV(d, vinV), vAfter: model.offStateV(d, vinV), imAt: (x) => im - (swing * x) / tOffS, vLmOff: (kV * tS) / tOffS };
     case 'resonant-reset': {
       const half = Math.PI * Math.sqrt(d.lmH * d.resonantCF);
       const th = Math.min(half, tOffS);
@@ -71,9 +73,9 @@ export function waveformsOf(d: Design, vinV: number = d.spec.vinNomV): Waveforms
   const vLm = (d.kV * tS) / (tOn - tc);
   const n = d.turnsRatio;
   const series = schemeModel(d.scheme).seriesSwitches;
-  const bipolar = d.scheme === 'active-clamp' || d.scheme === 'resonant-reset';
-  const im0 = bipolar ? -d.magnetizingPeakA : 0;
-  const shape = offShape(d, vinV, tOff);
+  const im0 = magnetizingStartAt(d, schemeModel(d.scheme), vinV);
+  const imEnd = im0 + d.magnetizingSwingA;
+  const shape = offShape(d, vinV, tOff, imEnd);
   const w: Waveforms = { scheme: d.scheme, vinV, periodS: tS, drainV: [], primaryA: [], magnetizingA: [], secondaryV: [], inductorA: [] };
   // Secondary voltage: given during the on time (0 while shorted, n·V(Lm) after), else reflected from the drain.
   const sample = (t: number, vds: number, im: number, ip: number, il: number, vSec?: number): void => {
@@ -94,17 +96,17 @@ export function waveformsOf(d: Design, vinV: number = d.spec.vinNomV): Waveforms
     sample(t0, 0, im0, im0, ilFalling(tOff), 0);
     sample(t0 + tc, 0, im0, n * ilMin + im0, ilMin, 0);
     sample(t0 + tc, 0, im0, n * ilMin + im0, ilMin, n * vLm);
-    sample(t0 + tOn, 0, d.magnetizingPeakA, n * ilMax + d.magnetizingPeakA, ilMax, n * vLm);
+    sample(t0 + tOn, 0, imEnd, n * ilMax + imEnd, ilMax, n * vLm);
     const steps = d.scheme === 'resonant-reset' ? ARC_SAMPLES : 1;
     for (let j = 0; j <= steps; j++) {
       const x = (shape.tResetS * j) / steps;
-      const im = j === 0 ? d.magnetizingPeakA : shape.imAt(x);
+      const im = j === 0 ? imEnd : shape.imAt(x);
       const v = j === steps && d.scheme === 'resonant-reset' ? shape.vAfter : shape.vReset(x);
       sample(t0 + tOn + x, v, im, primaryOff(im), ilFalling(x), offSec);
     }
     if (shape.tResetS < tOff) {
-      const imEnd = shape.imAt(shape.tResetS);
-      sample(t0 + tOn + shape.tResetS, shape.vAfter, imEnd, primaryOff(imEnd), ilFalling(shape.tResetS));
+      const imReset = shape.imAt(shape.tResetS);
+      sample(t0 + tOn + shape.tResetS, shape.vAfter, imReset, primaryOff(imReset), ilFalling(shape.tResetS));
     }
     sample(t0 + tS, shape.vAfter, shape.imAt(tOff), primaryOff(shape.imAt(tOff)), ilFalling(tOff), offSec);
   }

@@ -2,7 +2,7 @@ import {
   CORE_LOSS_DENSITY_W_PER_M3, CURRENT_DENSITY_A_PER_M2, FLUX_MARGIN, HOT_C, KU_EFFECTIVE,
 } from '../assumptions';
 import { areaProductM4, forwardApparentPowerW, windingLossW } from '../magnetics/area-product';
-import { coreLossDensityWPerM3, peakFluxForLossDensityT } from '../magnetics/steinmetz';
+import { coreLossDensityWPerM3, igseWaveformFactor, peakFluxForLossDensityT } from '../magnetics/steinmetz';
 import { unitPriceAt } from '../parts/index-library';
 import type { CorePart } from '../parts/types';
 import { selectCore } from '../parts/select';
@@ -34,23 +34,58 @@ function fitTurns(d: Design, core: CorePart, model: ResetSchemeModel, deltaBDesi
   d.turnsPrimary = ov?.turnsPrimary ?? Math.max(minTurns, Math.ceil(d.kV / (deltaBDesignT * core.aeM2 * s.fswHz)));
   d.deltaBT = d.kV / (d.turnsPrimary * core.aeM2 * s.fswHz);
   d.bTransientT = (s.vinMaxV * model.transientDuty(d)) / (d.turnsPrimary * core.aeM2 * s.fswHz);
-  d.bAvailableT = model.bipolarFlux ? 2 * core.bsatT : core.bsatT - core.brT;
   const at = d.turnsPrimary * ampereTurnsPerTurn(d, d.dutyAtVinMin, s.ioutA, d.rippleA);
   d.windowFill = at / (CURRENT_DENSITY_A_PER_M2 * KU_EFFECTIVE * core.waM2);
 }
 
 // One-entry memos of pure functions of the frequency (a sweep point evaluates every scheme at one fs).
-const lossFlux = { core: null as CorePart | null, fHz: NaN, deltaBT: NaN };
+const lossFlux = { core: null as CorePart | null, fHz: NaN, waveform: NaN, deltaBT: NaN };
 const skin = { fHz: NaN, depthM: NaN, awg: NaN };
 
-/** Flux swing 2·B̂ at which the Steinmetz loss density of `core` equals the target (derived; memo of the last call). */
-function lossLimitedSwingT(core: CorePart, fHz: number): number {
-  if (lossFlux.core !== core || lossFlux.fHz !== fHz) {
-    lossFlux.deltaBT = 2 * peakFluxForLossDensityT(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, fHz, CORE_LOSS_DENSITY_W_PER_M3);
+/**
+ * Flux swing ΔB at which the iGSE loss density of `core` equals the target: W·k·f^α·(ΔB/2)^β = Pv, so ΔB/2 is the
+ * Steinmetz inverse at Pv/W (derived; memo of the last call).
+ */
+function lossLimitedSwingT(core: CorePart, fHz: number, waveform: number): number {
+  if (lossFlux.core !== core || lossFlux.fHz !== fHz || lossFlux.waveform !== waveform) {
+    lossFlux.deltaBT = 2 * peakFluxForLossDensityT(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, fHz, CORE_LOSS_DENSITY_W_PER_M3 / waveform);
     lossFlux.core = core;
     lossFlux.fHz = fHz;
+    lossFlux.waveform = waveform;
   }
   return lossFlux.deltaBT;
+}
+
+/** iGSE waveform factor of a design's flux at the nominal input: rise in K/Vin,nom, fall in the scheme's reset time. */
+function waveformAtNominal(d: Design, model: ResetSchemeModel, alpha: number): number {
+  const vin = d.spec.vinNomV;
+  const rise = Math.min(1, Math.max(1e-6, d.kV / vin));
+  const fall = Math.min(1, Math.max(1e-6, model.fluxFallShare(d, vin)));
+  return igseWaveformFactor(alpha, rise, fall);
+}
+
+/**
+ * Magnetizing current from Lm (derived): swing ΔIm = K/(Lm·fs); unipolar schemes start from zero each period, bipolar
+ * ones swing offset ± ΔIm/2 about the dc offset their reset network sets (the active clamp's Cc charge balance),
+ * taken at the worse end of the line. The flux peak follows the current peak, so for a bipolar scheme the swing
+ * available below ±Bsat shrinks to 2·Bsat·(ΔIm/2)/|Im|max.
+ */
+function setMagnetizing(d: Design, model: ResetSchemeModel, core: CorePart): void {
+  const s = d.spec;
+  d.magnetizingSwingA = d.kV / (d.lmH * s.fswHz);
+  if (!model.bipolarFlux) {
+    d.magnetizingStartA = 0;
+    d.magnetizingPeakA = d.magnetizingSwingA;
+    d.bAvailableT = core.bsatT - core.brT;
+    return;
+  }
+  const atMin = model.magnetizingOffsetA(d, s.vinMinV);
+  const atMax = model.magnetizingOffsetA(d, s.vinMaxV);
+  const offset = Math.abs(atMin) >= Math.abs(atMax) ? atMin : atMax;
+  const half = d.magnetizingSwingA / 2;
+  d.magnetizingStartA = offset - half;
+  d.magnetizingPeakA = Math.abs(offset) + half;
+  d.bAvailableT = (2 * core.bsatT * half) / d.magnetizingPeakA;
 }
 
 /** Skin depth of hot copper and the thickest AWG strand ≤ 2·δ at `fHz` (memo of the last call). */
@@ -65,17 +100,22 @@ function skinAt(fHz: number): typeof skin {
 
 /**
  * Stage 4: core by area product (McLyman ch. 7 [M]), flux swing limited by core loss and by
- * saturation in a high-line transient, primary turns, Lm from the ungapped AL, Steinmetz core loss.
+ * saturation in a high-line transient, primary turns, Lm from the ungapped AL, the magnetizing current with its offset,
+ * core loss by the iGSE.
  */
 export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
   const ix = d.index;
   const ref = ix.coresByAp[0];
   if (!ref) { d.fails.push('no-core'); return; }
-  const dbLoss = lossLimitedSwingT(ref, s.fswHz);
-  const bAvail = model.bipolarFlux ? 2 * ref.bsatT : ref.bsatT - ref.brT;
+  const dbLoss = lossLimitedSwingT(ref, s.fswHz, waveformAtNominal(d, model, ref.steinmetzAlpha));
+  // A bipolar scheme's offset (known from the previous pass; none in the first) takes its share of the ±Bsat headroom.
+  const symmetry = model.bipolarFlux && d.magnetizingPeakA > 0 ? d.magnetizingSwingA / (2 * d.magnetizingPeakA) : 1;
+  const bAvail = model.bipolarFlux ? 2 * ref.bsatT * symmetry : ref.bsatT - ref.brT;
   const transientScale = (s.vinMaxV * model.transientDuty(d)) / d.kV;
-  const deltaBDesignT = Math.min(dbLoss, (FLUX_MARGIN * bAvail) / transientScale);
+  const transientLimitT = (FLUX_MARGIN * bAvail) / transientScale;
+  d.fluxLimitedBy = transientLimitT < dbLoss ? 'transient' : 'loss';
+  const deltaBDesignT = Math.min(dbLoss, transientLimitT);
   const duty = Math.min(Math.max(d.dutyAtVinMin, 0.05), 0.95);
   const pt = forwardApparentPowerW((s.voutV + d.dropsV) * s.ioutA, duty, 0.9);
   const ap = areaProductM4(duty, pt, KU_EFFECTIVE, deltaBDesignT, CURRENT_DENSITY_A_PER_M2, s.fswHz);
@@ -113,13 +153,14 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   if (!d.core) { d.fails.push('no-core'); return; }
   const core = d.core;
   if (d.windowFill > 1) d.fails.push('windings-do-not-fit');
-  if (d.bTransientT > d.bAvailableT) d.fails.push('flux-above-saturation');
   d.lmH = core.alH * d.turnsPrimary * d.turnsPrimary;
   d.llkH = s.leakageRatio * d.lmH;
-  // Unipolar schemes start from zero each cycle; bipolar ones swing ±ΔIm/2 (derived).
-  d.magnetizingPeakA = (model.bipolarFlux ? 0.5 : 1) * d.kV / (d.lmH * s.fswHz);
+  setMagnetizing(d, model, core);
+  if (d.bTransientT > d.bAvailableT) d.fails.push('flux-above-saturation');
   const sk = skinAt(s.fswHz);
   d.skinDepthM = sk.depthM;
   d.strandAwg = sk.awg;
-  d.coreLossW = core.veM3 * coreLossDensityWPerM3(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, s.fswHz, d.deltaBT / 2);
+  // iGSE (Venkatachalam et al. 2002) for the scheme's flux shape at Vin,nom, where the losses are reported.
+  d.coreLossW = core.veM3 * waveformAtNominal(d, model, core.steinmetzAlpha)
+    * coreLossDensityWPerM3(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, s.fswHz, d.deltaBT / 2);
 }

@@ -2,6 +2,7 @@ import {
   BODY_DIODE_V, GATE_DRIVE_V, PLATEAU_CURRENT_SHARE, RDS_HOT_FACTOR, SR_DEAD_TIME_S, SWITCHING_CHARGE_SHARE,
 } from '../assumptions';
 import { rippleAtA } from './duty';
+import { magnetizingStartAt, switchRmsA } from './stress';
 import {
   capacitiveLossW, conductionLossW, gateDriveLossW, overlapLossW, reverseRecoveryLossW, transitionTimeS,
 } from '../losses/semiconductor';
@@ -29,9 +30,9 @@ export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadF
   const ripple = rippleAtA(d, vinV);
   const iL2 = io * io + (ripple * ripple) / 12;
   const n = d.turnsRatio;
-  const im = d.magnetizingPeakA;
-  const ipPk = n * (io + ripple / 2) + im;
-  const irms = Math.sqrt(n * n * duty * iL2 + (im * im * duty) / 3);
+  const im0 = magnetizingStartAt(d, model, vinV);
+  const ipPk = n * (io + ripple / 2) + im0 + d.magnetizingSwingA;
+  const irms = switchRmsA(duty, n * (io - ripple / 2) + im0, ipPk);
   out.switchConduction = 0;
   out.switching = 0;
   out.gateDrive = 0;
@@ -43,7 +44,9 @@ export function lossesAt(d: Design, model: ResetSchemeModel, vinV: number, loadF
     out.switchConduction = positions * conductionLossW(irms, (sw.rdsOnOhm * RDS_HOT_FACTOR) / qty);
     const drvPeak = (d.highSideDrivers > 0 ? d.index.drivers['bootstrap-high-side'] : d.index.drivers['low-side'])?.peakA ?? 2;
     const tc = transitionTimeS(sw.qgC * qty, drvPeak, SWITCHING_CHARGE_SHARE, PLATEAU_CURRENT_SHARE);
-    const vOff = model.offStateV(d, vinV) / positions;
+    // Each switch blocks its own off-state voltage at turn-off: in the two-switch forward both drains rise together until
+    // the clamp diodes conduct, so each sees the full Vin (Hart §7.5 [M]; ngspice: 75.03 V on both at 75 V in).
+    const vOff = model.offStateV(d, vinV);
     const vOn = model.turnOnV(d, vinV);
     const ionA = Math.max(0, n * (io - ripple / 2));
     out.switching = positions * (overlapLossW(vOff, ipPk, tc, fs) + overlapLossW(vOn, ionA, tc, fs)

@@ -18,7 +18,7 @@ export function newDesign(spec: NormalisedSpec, scheme: SchemeId, index: Library
     rippleA: NaN, outputInductanceH: NaN, outputCapacitanceF: NaN, inductor: null, inductorPrice: 0, outCap: null, outCapQty: 0, outCapPrice: 0,
     rectForwardV: NaN, rectFreewheelV: NaN, rectDiode: null, rectSr: null, rectQty: 1, rectPrice: 0,
     core: null, corePrice: 0, turnsPrimary: 0, deltaBT: NaN, bTransientT: NaN, bAvailableT: NaN, lmH: NaN, llkH: NaN,
-    magnetizingPeakA: NaN, windowFill: NaN, skinDepthM: NaN, strandAwg: NaN, coreLossW: 0,
+    magnetizingSwingA: NaN, magnetizingStartA: NaN, magnetizingPeakA: NaN, fluxLimitedBy: 'loss', windowFill: NaN, skinDepthM: NaN, strandAwg: NaN, coreLossW: 0,
     primaryPeakA: NaN, primaryRmsA: NaN,
     clampV: NaN, resonantPeakV: NaN, resonantCF: NaN, addedCF: 0, clampResOhm: NaN, clampCapF: NaN,
     switchPeakV: NaN, transientV: NaN, spikeV: 0, snubberNeeded: false, switchStressV: NaN, switchRatingV: NaN,
@@ -93,7 +93,10 @@ export function resetDesign(d: Design, spec: NormalisedSpec, scheme: SchemeId, i
   d.bAvailableT = NaN;
   d.lmH = NaN;
   d.llkH = NaN;
+  d.magnetizingSwingA = NaN;
+  d.magnetizingStartA = NaN;
   d.magnetizingPeakA = NaN;
+  d.fluxLimitedBy = 'loss';
   d.windowFill = NaN;
   d.skinDepthM = NaN;
   d.strandAwg = NaN;
@@ -194,7 +197,10 @@ export function copyDesign(d: Design, from: Design): Design {
   d.bAvailableT = from.bAvailableT;
   d.lmH = from.lmH;
   d.llkH = from.llkH;
+  d.magnetizingSwingA = from.magnetizingSwingA;
+  d.magnetizingStartA = from.magnetizingStartA;
   d.magnetizingPeakA = from.magnetizingPeakA;
+  d.fluxLimitedBy = from.fluxLimitedBy;
   d.windowFill = from.windowFill;
   d.skinDepthM = from.skinDepthM;
   d.strandAwg = from.strandAwg;

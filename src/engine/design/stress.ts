@@ -22,15 +22,27 @@ export function leakageSpikeV(primaryPeakA: number, llkH: number, nodeCapF: numb
   return primaryPeakA * Math.sqrt(llkH / nodeCapF);
 }
 
-/** Primary peak and rms current at Vin,min, full load (reflected load + magnetizing; derived by charge balance). */
-export function designCurrents(d: Design): void {
+/** Magnetizing current at the start of the on time at vinV: 0 unipolar, offset − ΔIm/2 bipolar (design/magnetics.ts). */
+export function magnetizingStartAt(d: Design, model: ResetSchemeModel, vinV: number): number {
+  return model.bipolarFlux ? model.magnetizingOffsetA(d, vinV) - d.magnetizingSwingA / 2 : 0;
+}
+
+/**
+ * Rms of the switch current over a period at duty D: in the on time the reflected inductor current and the magnetizing
+ * current both ramp linearly, so i(x) = a + (b − a)·x with a, b the currents at the start and end of the on time, and
+ * rms² = D·(a² + a·b + b²)/3 (derived; exact for the trapezoid plus ramp, cross term included).
+ */
+export function switchRmsA(duty: number, startA: number, endA: number): number {
+  return Math.sqrt((duty * (startA * startA + startA * endA + endA * endA)) / 3);
+}
+
+/** Primary peak and rms current at Vin,min, full load (reflected load + magnetizing with its offset; derived). */
+export function designCurrents(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
-  const duty = d.dutyAtVinMin;
-  d.primaryPeakA = d.turnsRatio * (s.ioutA + d.rippleA / 2) + d.magnetizingPeakA;
-  const load = d.turnsRatio * d.turnsRatio * duty * (s.ioutA * s.ioutA + (d.rippleA * d.rippleA) / 12);
-  // Magnetizing ramp during the on time (0→Im,pk or −Im,pk→+Im,pk): rms² = Im,pk²·D/3.
-  const mag = (d.magnetizingPeakA * d.magnetizingPeakA * duty) / 3;
-  d.primaryRmsA = Math.sqrt(load + mag);
+  const im0 = magnetizingStartAt(d, model, s.vinMinV);
+  const start = d.turnsRatio * (s.ioutA - d.rippleA / 2) + im0;
+  d.primaryPeakA = d.turnsRatio * (s.ioutA + d.rippleA / 2) + im0 + d.magnetizingSwingA;
+  d.primaryRmsA = switchRmsA(d.dutyAtVinMin, start, d.primaryPeakA);
 }
 
 function pickMainSwitch(d: Design, minV: number, forcedId: string | undefined): void {

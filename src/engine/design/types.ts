@@ -85,7 +85,14 @@ export interface Design {
   bAvailableT: number;
   lmH: number;
   llkH: number;
+  /** Magnetizing current swing over the on time, ΔIm = K/(Lm·fs). */
+  magnetizingSwingA: number;
+  /** Magnetizing current at the start of the on time (0 unipolar; offset − ΔIm/2 bipolar), worst over the line. */
+  magnetizingStartA: number;
+  /** Largest magnitude of the magnetizing current, max(|start|, |start + ΔIm|): sets the flux peak. */
   magnetizingPeakA: number;
+  /** Which limit set the design flux swing: core loss or the high-line transient against saturation. */
+  fluxLimitedBy: 'loss' | 'transient';
   windowFill: number;
   skinDepthM: number;
   strandAwg: number;

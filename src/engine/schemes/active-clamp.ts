@@ -15,6 +15,49 @@ export function equalStressDuty(vinMinV: number, vinMaxV: number): number {
   return vinMaxV / (vinMaxV + vinMinV);
 }
 
+/**
+ * Duty limit of the active clamp that minimises the switch stress over the input range, within `capDuty` (the
+ * controller's limit less the margin). The figure is the switch stress S = Vpk·Irms (Erickson & Maksimović 2nd ed.
+ * §6.4.1 [M]): for a fixed output Irms,max = n·Io·√D at Vin,min with n ∝ 1/D, so Irms ∝ 1/√D, and the worst peak is
+ * max(Vin,min/(1 − D), Vin,max²/(Vin,max − D·Vin,min)) (Vds = Vin²/(Vin − K), K = D·Vin,min). Both peaks rise with D, so the
+ * voltage alone would ask for D → 0 (and a huge current); their product has one minimum. Above the equal-stress duty
+ * D* = Vmax/(Vmax + Vmin) the low-line term dominates and Vmin/((1 − D)·√D) only rises (its minimum is at 1/3 < D*); below
+ * it the high-line term dominates, Vmax²/((Vmax − D·Vmin)·√D), whose minimum is at D = Vmax/(3·Vmin) (derived: zero of
+ * the derivative). So the optimum is D* on a wide range (Vmax ≥ 3·Vmin·D*) and Vmax/(3·Vmin) on a narrow one, where D*
+ * would cost a needlessly high voltage (380–400 V: 0.351 and about 600 V instead of 0.513 and 780 V).
+ */
+export function activeClampDutyLimit(vinMinV: number, vinMaxV: number, capDuty: number): number {
+  const star = equalStressDuty(vinMinV, vinMaxV);
+  const highLineMinimum = vinMaxV / (3 * vinMinV);
+  return Math.min(capDuty, highLineMinimum < star ? highLineMinimum : star);
+}
+
+/**
+ * Dc offset of the magnetizing current at vinV, from the charge balance of Cc (derived). Cc conducts only in the off
+ * time, so the current through it averages zero there. At turn-off the leakage keeps the reflected load current
+ * n·IL,max flowing into Cc until the rectifiers have commutated (Llk sees Vc while the shorted secondary holds Lm at 0 V):
+ * Q = ½·n·IL,max·tc, tc = Llk·n·IL,max/Vc, so Q = ½·Llk·(n·IL,max)²/Vc. The only other current through Cc is the
+ * magnetizing current, whose mean over the off time is therefore −Q/((1 − D)·Ts): Im swings offset ± ΔIm/2 with
+ * offset = −Q·fs/(1 − D). The charge the drain-node capacitance takes while the drain rises above Vin (½·C·Vc) would
+ * lower Q a little; it is left out, which errs towards the larger peak (checked against ngspice, tests/spice).
+ */
+function magnetizingOffsetAt(d: Design, vinV: number): number {
+  if (!(d.llkH > 0) || !(d.lmH > 0)) return 0;
+  const duty = switchDutyAt(d, vinV);
+  const vc = clampAt(d, vinV);
+  if (!(duty < 1) || !(vc > 0)) return 0;
+  const i = d.turnsRatio * (d.spec.ioutA + rippleAtA(d, vinV) / 2);
+  return (-(0.5 * d.llkH * i * i) / vc) * d.spec.fswHz / (1 - duty);
+}
+
+/** Rms of the clamp switch's current, the magnetizing ramp from its end-of-on-time value back to its start over 1 − D (derived). */
+function auxRmsAt(d: Design, vinV: number): number {
+  const duty = switchDutyAt(d, vinV);
+  const a = magnetizingOffsetAt(d, vinV) + d.magnetizingSwingA / 2;
+  const b = a - d.magnetizingSwingA;
+  return Math.sqrt((Math.max(0, 1 - duty) * (a * a + a * b + b * b)) / 3);
+}
+
 /** Active-clamp off-state voltage Vds = Vin/(1 − D) = Vin²/(Vin − K), U-shaped over line (derived). */
 export function activeClampOffStateV(vinV: number, kV: number): number {
   if (!(vinV > kV)) throw new RangeError(`active clamp needs Vin > Vin·D (got Vin ${vinV} V, K ${kV} V)`);
@@ -68,15 +111,15 @@ export const activeClamp: ResetSchemeModel = {
   capacitorRole: 'clamp-capacitor',
   restressAfterReset: false,
   formulas: {
-    dutyLimit: 'Dlim = min(maxDuty − margin, Vin,max/(Vin,max + Vin,min))',
+    dutyLimit: 'Dlim minimises S = Vds,max·Irms: Vmax/(Vmax + Vmin), or Vmax/(3·Vmin) where that is lower; ≤ maxDuty − margin',
     offState: 'Vds = Vin/(1 − D) = Vin²/(Vin − Vin·D), worst at either end of the range',
     transient: 'volt-second clamp assumed: D ≤ K/Vin, so the transient equals the steady worst case',
     forwardReverse: 'VR(D1) = n·Vin·D/(1 − D), largest at low line',
-    resetLoss: 'P = Iaux,rms²·Rds,aux, Iaux,rms = (ΔIm/2)·√((1 − D)/3)',
-    source: 'derived (volt-second balance on Lm; charge balance on Cc)',
+    resetLoss: 'P = Iaux,rms²·Rds,aux, Iaux,rms² = (1 − D)·(a² + ab + b²)/3, a, b = offset ± ΔIm/2',
+    source: 'derived (volt-second balance on Lm; charge balance on Cc); duty by switch stress, Erickson & Maksimović 2nd ed. §6.4.1 [M]',
   },
   resetDutyLimit: (spec) => spec.maxDuty,
-  designDutyLimit: (spec) => Math.min(spec.maxDuty - DUTY_MARGIN, equalStressDuty(spec.vinMinV, spec.vinMaxV)),
+  designDutyLimit: (spec) => activeClampDutyLimit(spec.vinMinV, spec.vinMaxV, spec.maxDuty - DUTY_MARGIN),
   transientDuty: (d) => switchDutyAt(d, d.spec.vinMaxV),
   prepare() {},
   resetVoltageV: clampAt,
@@ -90,12 +133,11 @@ export const activeClamp: ResetSchemeModel = {
   },
   sizeReset(d) {
     const s = d.spec;
-    const dMin = d.dutyAtVinMax;
     const highSide = s.activeClampVariant === 'high-side';
     d.clampV = highSide
       ? Math.max(this.resetVoltageV(d, s.vinMinV), this.resetVoltageV(d, s.vinMaxV))
       : d.switchPeakV;
-    d.auxRmsA = d.magnetizingPeakA * Math.sqrt((1 - dMin) / 3);
+    d.auxRmsA = auxRmsAt(d, s.vinMaxV);
     const list = highSide ? d.index.nMosfets : d.index.pMosfets;
     const prices = highSide ? d.prices.nMosfets : d.prices.pMosfets;
     const aux = selectMosfet(list, prices, d.switchStressV / s.voltageDerating, d.auxRmsA, d.poutW);
@@ -108,9 +150,12 @@ export const activeClamp: ResetSchemeModel = {
     d.lowSideDrivers = highSide ? 1 : 2;
     d.highSideDrivers = highSide ? 1 : 0;
   },
-  resetLossW(d, _vinV, duty) {
+  magnetizingOffsetA: magnetizingOffsetAt,
+  // Cc resets Lm over the whole off time (derived: volt-seconds on Lm).
+  fluxFallShare: (d, vinV) => Math.max(0, 1 - d.kV / vinV),
+  resetLossW(d, vinV) {
     if (!d.auxSwitch) return 0;
-    const irms = d.magnetizingPeakA * Math.sqrt((1 - duty) / 3);
+    const irms = auxRmsAt(d, vinV);
     return irms * irms * hotRdsOhm(d.auxSwitch.rdsOnOhm, 1);
   },
 };

@@ -1,10 +1,11 @@
 import { RCD_CLAMP_MARGIN, RCD_DESIGN_DUTY } from '../assumptions';
 import { E24, E6, snapDownIn, snapUpIn } from '../eseries';
 import { selectResistor } from '../parts/select';
+import { switchDutyAt } from '../design/duty';
 import { chooseClampCap, chooseClampDiode, vfOf } from './common';
 import type { ResetSchemeModel } from './types';
 
-/** RCD clamp voltage needed at the design duty, with the 20 % margin: Vcl = 1.2·K/(1 − Dlim) (derived by volt-second balance). */
+/** RCD clamp voltage needed at the design duty, with the 20 % margin, per volt of Vin,min: Vcl/Vin,min = 1.2·Dlim/(1 − Dlim) (derived by volt-second balance). */
 function clampRatio(dutyLimit: number): number {
   return (RCD_CLAMP_MARGIN * dutyLimit) / (1 - dutyLimit);
 }
@@ -31,7 +32,7 @@ export const rcdClamp: ResetSchemeModel = {
   restressAfterReset: false,
   formulas: {
     dutyLimit: 'Dlim = min(maxDuty, 0.5); reset limit Vcl/(Vin,min + Vcl)',
-    offState: 'Vds = Vin + Vcl, Vcl = 1.2·Vin·D/(1 − D) at Dlim',
+    offState: 'Vds = Vin + Vcl, Vcl = 1.2·Vin,min·D/(1 − D) with the switch duty D (leakage commutation included) at Dlim',
     transient: 'Vds → Vin,max/(1 − Dlim) when D reaches its limit at high line',
     forwardReverse: 'VR(D1) = n·Vcl',
     resetLoss: 'P_R = fs·(½·Lm·Im,pk² + ½·Llk·Ip,pk²)',
@@ -44,7 +45,12 @@ export const rcdClamp: ResetSchemeModel = {
   designDutyLimit: (spec) => Math.min(spec.maxDuty, RCD_DESIGN_DUTY),
   transientDuty: (d) => d.dutyLimit,
   prepare(d) {
-    d.clampV = (RCD_CLAMP_MARGIN * d.kV) / (1 - d.dutyLimit);
+    // Reset needs Vcl·(1 − D) ≥ Vin·D with the switch duty D, leakage commutation included: while the leakage hands the
+    // load current back at turn-off the secondary is shorted and Lm gets no reset voltage, so the clamp must return
+    // K + Llk·fs·n·IL in the rest of the off time (derived: volt-seconds on Lm). The turns ratio puts that duty at the
+    // limit at Vin,min; an overridden ratio uses its own switch duty there.
+    const dt = d.ov?.turnsRatio ? Math.min(switchDutyAt(d, d.spec.vinMinV), d.dutyLimit) : d.dutyLimit;
+    d.clampV = (RCD_CLAMP_MARGIN * d.spec.vinMinV * dt) / (1 - d.dutyLimit);
   },
   resetVoltageV: (d) => d.clampV,
   offStateV: (d, vinV) => vinV + d.clampV,
@@ -61,6 +67,9 @@ export const rcdClamp: ResetSchemeModel = {
     chooseClampDiode(d, d.spec.vinMaxV + d.clampV, p / d.clampV, 1);
     d.lowSideDrivers = 1;
   },
+  magnetizingOffsetA: () => 0,
+  // Reset at −Vcl: the flux falls in K/Vcl of the period (derived: volt-seconds on Lm).
+  fluxFallShare: (d) => Math.min(1, d.kV / d.clampV),
   resetLossW(d, _vinV, _duty, primaryPeakA) {
     const p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, primaryPeakA, d.spec.fswHz);
     return p + vfOf(d) * p / d.clampV;

@@ -63,6 +63,10 @@ export const resonantReset: ResetSchemeModel = {
     if (d.addedCF > 0) chooseClampCap(d, d.addedCF, s.vinMaxV + d.resonantPeakV);
     d.lowSideDrivers = 1;
   },
+  magnetizingOffsetA: () => 0,
+  // Cr is chosen so that half a resonant period fills 1 − Dr of the period; the half-cosine fall is taken as linear over
+  // that time (its iGSE is about 7 % higher at α = 1.4; see src/engine/README.md).
+  fluxFallShare: () => 1 - RESONANT_RESET_DUTY,
   resetLossW(d, vinV, _duty, primaryPeakA) {
     return 0.5 * d.addedCF * vinV * vinV * d.spec.fswHz + 0.5 * d.llkH * primaryPeakA * primaryPeakA * d.spec.fswHz;
   },

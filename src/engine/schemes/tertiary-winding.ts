@@ -40,6 +40,9 @@ export const tertiaryWinding: ResetSchemeModel = {
     chooseClampDiode(d, d.spec.vinMaxV * (1 + d.resetTurnsRatio), d.magnetizingPeakA * d.dutyAtVinMin / 2, 1);
     d.lowSideDrivers = 1;
   },
+  magnetizingOffsetA: () => 0,
+  // The reset winding puts Vin/r on Lm (r = Nr/Np), so the flux falls in K·r/Vin of the period (derived: volt-seconds on Lm).
+  fluxFallShare: (d, vinV) => Math.min(1, (d.kV * d.resetTurnsRatio) / vinV),
   resetLossW(d, _vinV, duty, primaryPeakA) {
     return vfOf(d) * d.magnetizingPeakA * duty / 2 + 0.5 * d.llkH * primaryPeakA * primaryPeakA * d.spec.fswHz;
   },

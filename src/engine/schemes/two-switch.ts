@@ -38,6 +38,9 @@ export const twoSwitch: ResetSchemeModel = {
     chooseClampDiode(d, d.spec.vinMaxV, d.magnetizingPeakA * d.dutyAtVinMin / 2 + 0.1 * d.primaryPeakA, 2);
     d.highSideDrivers = 1;
   },
+  magnetizingOffsetA: () => 0,
+  // Reset at −Vin through the clamp diodes: the flux falls in K/Vin of the period (derived: volt-seconds on Lm).
+  fluxFallShare: (d, vinV) => Math.min(1, d.kV / vinV),
   resetLossW(d, vinV, duty, primaryPeakA) {
     const tLeakS = (d.llkH * primaryPeakA) / vinV;
     return 2 * vfOf(d) * (d.magnetizingPeakA * duty / 2 + 0.5 * primaryPeakA * tLeakS * d.spec.fswHz);

@@ -53,6 +53,13 @@ export interface ResetSchemeModel {
   turnOnV(d: Design, vinV: number): number;
   /** Size the reset network once Lm and the main switch are known; may update clamp voltages. */
   sizeReset(d: Design): void;
+  /**
+   * Dc offset of the magnetizing current at vinV (A): its mean over a period, which the reset network's charge balance
+   * sets. 0 for the unipolar schemes (they start from zero each period) and for a lossless resonant reset.
+   */
+  magnetizingOffsetA(d: Design, vinV: number): number;
+  /** Share of the period over which the flux falls back during reset at vinV (the iGSE core loss reads it). */
+  fluxFallShare(d: Design, vinV: number): number;
   /** Reset/clamp loss at vinV and load (W), excluding nothing the common terms already count. */
   resetLossW(d: Design, vinV: number, duty: number, primaryPeakA: number, primaryRmsA: number): number;
 }

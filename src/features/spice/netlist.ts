@@ -139,11 +139,11 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     '* Main switch(es) with body diodes',
     ...(twoSwitch ? ['S1 in dt g1 0 SWI', 'DB1 dt in DIDEAL', 'S1B d 0 g1 0 SWI', 'DB1B 0 d DIDEAL'] : ['S1 d 0 g1 0 SWI', 'DB1 0 d DIDEAL']),
     '* Transformer (dots on the first node)',
-    `LP ${top} d ${n(p.lmH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`,
+    `LP ${top} d ${n(p.lmH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`,
     `LS ${secTop} 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
     'K1 LP LS 1',
     ...(leakage === 'primary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary, inside the clamp loop`,
-      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n((bipolar ? -p.magnetizingPeakA : 0) + p.turnsRatio * ilMinA)}`,
+      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`,
       // 100 pF of drain-node capacitance (switch output and winding) gives the leakage current a path for the instant the
       // switch opens; without it the simulator's time step collapses at the clamp diode.
       'CDN d 0 1e-10'] : []),

@@ -34,6 +34,8 @@ export interface NetlistPoint {
   resonantCapacitanceF: number | null;
   activeClampVariant: NormalisedSpec['activeClampVariant'];
   magnetizingPeakA: number;
+  /** Magnetizing current at the start of the on time at this input (the engine's waveform; offset − ΔIm/2 when bipolar). */
+  magnetizingStartA: number;
   /** The engine's own figures at this input, for the header and the cross-check. */
   expected: { switchPeakV: number; voutV: number; inductorRippleA: number };
 }
@@ -67,7 +69,7 @@ export function netlistPoint(spec: NormalisedSpec, result: SchemeResult, vinCase
     outputInductanceH: result.outputInductanceH, outputCapacitanceF: result.outputCapacitanceF,
     clampCapacitorV: result.clampCapacitorV, clampResistorOhm: d.clampResistorOhm, clampCapacitanceF: d.clampCapacitanceF,
     resonantCapacitanceF: d.resonantCapacitanceF, activeClampVariant: spec.activeClampVariant,
-    magnetizingPeakA: result.magnetizingPeakA,
+    magnetizingPeakA: result.magnetizingPeakA, magnetizingStartA: w.magnetizingA[0]!.value,
     expected: { switchPeakV, voutV: spec.voutV, inductorRippleA: Math.max(...il) - Math.min(...il) },
   };
 }

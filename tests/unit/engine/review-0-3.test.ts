@@ -1,0 +1,243 @@
+/**
+ * Checks added with engine 0.3, one per defect an independent hand and ngspice recomputation found. Each names its
+ * source beside it (textbook and section, paper, or "derived" with the derivation). All specs are invented test data.
+ */
+import fc from 'fast-check';
+import { describe, expect, test } from 'vitest';
+import { designScheme } from '../../../src/engine/design/pipeline';
+import { lossesAt } from '../../../src/engine/design/operating-point';
+import { rippleAtA } from '../../../src/engine/design/duty';
+import { evaluateNormalised } from '../../../src/engine/evaluate';
+import { indexLibrary } from '../../../src/engine/parts/index-library';
+import { demoPartsLibrary } from '../../../src/engine/parts/demo-library';
+import { schemeModel } from '../../../src/engine/registry';
+import { SCHEME_IDS } from '../../../src/engine/scheme-ids';
+import { activeClampDutyLimit, equalStressDuty } from '../../../src/engine/schemes/active-clamp';
+import { igseWaveformFactor, coreLossDensityWPerM3 } from '../../../src/engine/magnetics/steinmetz';
+import { overlapLossW, capacitiveLossW, transitionTimeS } from '../../../src/engine/losses/semiconductor';
+import { PLATEAU_CURRENT_SHARE, SWITCHING_CHARGE_SHARE } from '../../../src/engine/assumptions';
+import { INDUSTRIAL, SERVER, spec, TELECOM } from './helpers';
+
+const index = indexLibrary(demoPartsLibrary);
+const SPECS = { telecom: TELECOM, server: SERVER, industrial: INDUSTRIAL };
+const NARROW_HV = { vinMinV: 380, vinNomV: 390, vinMaxV: 400, voutV: 48, ioutA: 10, fswHz: 150e3 };
+const rel = (a: number, b: number): number => Math.abs(a / b - 1);
+
+describe('1. active-clamp magnetizing current carries a dc offset (derived: charge balance on Cc)', () => {
+  // Cc conducts only in the off time, so its charge balances over that interval. At turn-off the leakage keeps the
+  // reflected load current n·IL,max flowing into Cc until the rectifiers have commutated (Llk sees Vc, the shorted
+  // secondary holds Lm at 0 V): Q = ½·n·IL,max·tc with tc = Llk·n·IL,max/Vc, so Q = ½·Llk·(n·IL,max)²/Vc. The only
+  // other current through Cc is the magnetizing current, whose mean over the off time must therefore be −Q/((1 − D)·Ts):
+  // Im = offset ± ΔIm/2 with offset = −Q·fs/(1 − D), ΔIm = K/(Lm·fs) (volt-seconds on Lm). The true peak |Im| is the
+  // negative one, |offset| + ΔIm/2, worst over the line.
+  test.each(Object.entries(SPECS))('%s: peak = |offset| + ΔIm/2, worst over Vin min and max; above ΔIm/2', (_n, raw) => {
+    const d = designScheme(spec(raw), 'active-clamp', index);
+    const s = d.spec;
+    const swing = d.kV / (d.lmH * s.fswHz);
+    const offsetAt = (vin: number, duty: number): number => {
+      const vc = (vin * duty) / (1 - duty);
+      const i = d.turnsRatio * (s.ioutA + rippleAtA(d, vin) / 2);
+      return (-(0.5 * d.llkH * i * i) / vc) * s.fswHz / (1 - duty);
+    };
+    const offset = Math.min(offsetAt(s.vinMinV, d.dutyAtVinMin), offsetAt(s.vinMaxV, d.dutyAtVinMax));
+    expect(d.magnetizingSwingA).toBeCloseTo(swing, 12);
+    expect(rel(d.magnetizingPeakA, swing / 2 - offset)).toBeLessThan(1e-9);
+    expect(d.magnetizingPeakA).toBeGreaterThan(1.1 * swing / 2);
+    expect(d.magnetizingStartA).toBeCloseTo(offset - swing / 2, 12);
+    // The offset takes flux headroom: the peak, not the half swing, must stay below Bsat (ΔB/2 scaled by Im,pk/(ΔIm/2)).
+    expect(rel(d.bAvailableT, (2 * d.core!.bsatT * (swing / 2)) / d.magnetizingPeakA)).toBeLessThan(1e-9);
+  });
+  test('without leakage the current is symmetric (offset 0)', () => {
+    const d = designScheme(spec({ ...TELECOM, leakageRatio: 0 }), 'active-clamp', index);
+    expect(d.magnetizingPeakA).toBeCloseTo(d.magnetizingSwingA / 2, 12);
+  });
+  test('the clamp switch carries the off-time ramp from the end value to the start value: rms² = (1 − D)·(a² + ab + b²)/3', () => {
+    const d = designScheme(spec(SERVER), 'active-clamp', index);
+    const offset = schemeModel('active-clamp').magnetizingOffsetA(d, d.spec.vinMaxV);
+    const a = offset + d.magnetizingSwingA / 2;
+    const b = offset - d.magnetizingSwingA / 2;
+    expect(d.auxRmsA).toBeCloseTo(Math.sqrt(((1 - d.dutyAtVinMax) * (a * a + a * b + b * b)) / 3), 12);
+  });
+});
+
+describe('2. two-switch turn-off: each switch blocks the full Vin until the clamp diodes conduct (Hart §7.5 [M]; seen in ngspice)', () => {
+  test.each(Object.entries(SPECS))('%s: switching loss = 2·(½·Vin·Ipk·tc·fs + ½·(Vin/2)·Ion·tc·fs + ½·Coss·(Vin/2)²·fs)', (_n, raw) => {
+    const d = designScheme(spec(raw), 'two-switch', index);
+    const s = d.spec;
+    const sw = d.mainSwitch!;
+    const vin = s.vinNomV;
+    const l = lossesAt(d, schemeModel('two-switch'), vin, 1);
+    const ripple = rippleAtA(d, vin);
+    const ipk = d.turnsRatio * (s.ioutA + ripple / 2) + d.magnetizingSwingA;
+    const ion = d.turnsRatio * (s.ioutA - ripple / 2);
+    const drv = (d.index.drivers['bootstrap-high-side'] ?? d.index.drivers['low-side'])!.peakA;
+    const tc = transitionTimeS(sw.qgC * d.mainQty, drv, SWITCHING_CHARGE_SHARE, PLATEAU_CURRENT_SHARE);
+    const expected = 2 * (overlapLossW(vin, ipk, tc, s.fswHz) + overlapLossW(vin / 2, ion, tc, s.fswHz) + capacitiveLossW(sw.cossF * d.mainQty, vin / 2, s.fswHz));
+    expect(rel(l.switching, expected)).toBeLessThan(1e-9);
+  });
+});
+
+describe('3. active-clamp duty limit minimises the switch stress over the range (Erickson & Maksimović 2nd ed. §6.4.1 [M]: S = Vpk·Irms)', () => {
+  // For a fixed output, Irms,max ∝ 1/√D at Vin,min (n = (Vout + drops)/(D·Vin,min), Irms = n·Io·√D) and the worst peak is
+  // max(Vin,min/(1 − D), Vin,max²/(Vin,max − D·Vin,min)) (derived from Vds = Vin²/(Vin − K)); the figure to minimise is
+  // their product. Below the equal-stress duty the high-line end dominates and its own minimum sits at D = Vmax/(3·Vmin).
+  const figure = (dt: number, vmin: number, vmax: number): number => Math.max(vmin / (1 - dt), (vmax * vmax) / (vmax - dt * vmin)) / Math.sqrt(dt);
+  test.each([
+    ['36–75 V (wide: equal-stress point is the minimum)', 36, 75, 0.7],
+    ['18–32 V', 18, 32, 0.7],
+    ['300–410 V', 300, 410, 0.7],
+    ['380–400 V (narrow high-voltage bus)', 380, 400, 0.7],
+  ])('%s', (_name, vmin, vmax, cap) => {
+    const dt = activeClampDutyLimit(vmin, vmax, cap);
+    for (let x = 0.05; x <= cap; x += 0.001) expect(figure(dt, vmin, vmax)).toBeLessThanOrEqual(figure(x, vmin, vmax) * (1 + 1e-9));
+    const star = equalStressDuty(vmin, vmax);
+    if (vmax / (3 * vmin) >= star) expect(dt).toBeCloseTo(Math.min(star, cap), 6);
+    else expect(dt).toBeCloseTo(vmax / (3 * vmin), 6);
+  });
+  test('380–400 V: the duty limit falls from the equal-stress 0.513 to 0.351 and the steady peak from 780 V to about 600 V', () => {
+    const r = evaluateNormalised(spec({ ...NARROW_HV, leakageRatio: 0 })).results.find((x) => x.scheme === 'active-clamp')!;
+    expect(r.dutyLimit).toBeCloseTo(400 / (3 * 380), 6);
+    expect(r.switchPeakV).toBeLessThan(605);
+    expect(r.switchPeakV).toBeGreaterThan(595);
+  });
+});
+
+describe('5. switch rms: exact trapezoid plus ramp, cross term included (derived)', () => {
+  // On time: i(x) = A + B·x (x = t/Ton), A = n·IL,min (+ Im,start), B = n·ΔIL + ΔIm; mean of i² = A² + A·B + B²/3,
+  // i.e. D·(a² + a·b + b²)/3 with a, b the currents at the start and end of the on time.
+  test.each(SCHEME_IDS.flatMap((id) => Object.entries(SPECS).map(([n, raw]) => [id, n, raw] as const)))('%s on %s', (id, _n, raw) => {
+    const d = designScheme(spec(raw), id, index);
+    const n = d.turnsRatio;
+    // Bipolar schemes start the on time at offset − ΔIm/2, the offset at this line (Vin,min).
+    const im0 = schemeModel(id).bipolarFlux ? schemeModel(id).magnetizingOffsetA(d, d.spec.vinMinV) - d.magnetizingSwingA / 2 : 0;
+    const a = n * (d.spec.ioutA - d.rippleA / 2) + im0;
+    const b = n * (d.spec.ioutA + d.rippleA / 2) + im0 + d.magnetizingSwingA;
+    expect(rel(d.primaryRmsA, Math.sqrt((d.dutyAtVinMin * (a * a + a * b + b * b)) / 3))).toBeLessThan(1e-12);
+  });
+});
+
+describe('6. core loss by the improved generalized Steinmetz equation (Venkatachalam, Sullivan, Abdallah & Tacca, COMPEL 2002)', () => {
+  // iGSE: Pv = (1/T)·∫ ki·|dB/dt|^α·ΔB^(β−α) dt, ki = k/((2π)^(α−1)·∫0..2π |cos θ|^α·2^(β−α) dθ). For a flux that rises
+  // by ΔB in d1·T and falls in d2·T: Pv = ki·f^α·ΔB^β·(d1^(1−α) + d2^(1−α)). Against the sine form k·f^α·(ΔB/2)^β the
+  // ratio is W = 2^α·(d1^(1−α) + d2^(1−α))/((2π)^(α−1)·∫|cos θ|^α dθ) (derived from the paper's definitions).
+  const integralCos = (alpha: number): number => {
+    let s = 0;
+    const m = 200000;
+    for (let i = 0; i < m; i++) s += Math.abs(Math.cos((2 * Math.PI * (i + 0.5)) / m)) ** alpha;
+    return (s * 2 * Math.PI) / m;
+  };
+  test.each([[1.2, 2.4], [1.4, 2.6], [1.6, 2.8]])('α %d, β %d: iGSE of a sine equals Steinmetz (the definition of ki)', (alpha, beta) => {
+    // Numerical iGSE of B(t) = B̂·sin ωt over one period against k·f^α·B̂^β.
+    const k = 4;
+    const f = 100e3;
+    const bPk = 0.1;
+    const ki = k / ((2 * Math.PI) ** (alpha - 1) * integralCos(alpha) * 2 ** (beta - alpha));
+    const m = 100000;
+    let s = 0;
+    for (let i = 0; i < m; i++) s += Math.abs(bPk * 2 * Math.PI * f * Math.cos((2 * Math.PI * (i + 0.5)) / m)) ** alpha;
+    const pv = ki * (2 * bPk) ** (beta - alpha) * (s / m);
+    expect(rel(pv, coreLossDensityWPerM3(k, alpha, beta, f, bPk))).toBeLessThan(1e-6);
+  });
+  test.each([[0.5, 0.5], [0.45, 0.45], [0.3, 0.7], [0.34, 0.34]])('waveform factor for rise %d, fall %d of the period', (d1, d2) => {
+    for (const alpha of [1.4, 1.2]) {
+      const w = (2 ** alpha * (d1 ** (1 - alpha) + d2 ** (1 - alpha))) / ((2 * Math.PI) ** (alpha - 1) * integralCos(alpha));
+      expect(rel(igseWaveformFactor(alpha, d1, d2), w)).toBeLessThan(1e-6);
+    }
+  });
+  test('a symmetric triangle loses about 7 % less than a sine at α = 1.4; a unipolar reset at D = 0.34 about 9 % more', () => {
+    expect(igseWaveformFactor(1.4, 0.5, 0.5)).toBeGreaterThan(0.92);
+    expect(igseWaveformFactor(1.4, 0.5, 0.5)).toBeLessThan(0.94);
+    expect(igseWaveformFactor(1.4, 0.34, 0.34)).toBeGreaterThan(1.07);
+  });
+  test.each(SCHEME_IDS)('%s: core loss = Ve·W·k·f^α·(ΔB/2)^β with the scheme’s own flux rise and fall times at Vin,nom', (id) => {
+    const d = designScheme(spec(TELECOM), id, index);
+    const c = d.core!;
+    const model = schemeModel(id);
+    const rise = d.kV / d.spec.vinNomV;
+    const fall = model.fluxFallShare(d, d.spec.vinNomV);
+    const expected = c.veM3 * igseWaveformFactor(c.steinmetzAlpha, rise, fall)
+      * coreLossDensityWPerM3(c.steinmetzK, c.steinmetzAlpha, c.steinmetzBeta, d.spec.fswHz, d.deltaBT / 2);
+    expect(rel(d.coreLossW, expected)).toBeLessThan(1e-9);
+  });
+  test('fall shares: tertiary D·Nr/Np, two-switch D, RCD K/Vcl, active clamp 1 − D (derived: volt-seconds on Lm)', () => {
+    const t = designScheme(spec({ ...TELECOM, resetTurnsRatio: 0.8 }), 'tertiary-winding', index);
+    expect(schemeModel('tertiary-winding').fluxFallShare(t, 48)).toBeCloseTo((t.kV / 48) * 0.8, 12);
+    const w = designScheme(spec(TELECOM), 'two-switch', index);
+    expect(schemeModel('two-switch').fluxFallShare(w, 48)).toBeCloseTo(w.kV / 48, 12);
+    const r = designScheme(spec(TELECOM), 'rcd-clamp', index);
+    expect(schemeModel('rcd-clamp').fluxFallShare(r, 48)).toBeCloseTo(r.kV / r.clampV, 12);
+    const a = designScheme(spec(TELECOM), 'active-clamp', index);
+    expect(schemeModel('active-clamp').fluxFallShare(a, 48)).toBeCloseTo(1 - a.kV / 48, 12);
+  });
+});
+
+describe('7. RCD clamp voltage from the switch duty, leakage commutation included (derived: volt-seconds on Lm)', () => {
+  // At turn-off Lm sees no reset voltage until the leakage has handed the load current back (the secondary is shorted), so
+  // the clamp must reset K·Ts in (1 − D)·Ts − tc: Vcl·(1 − D) ≥ K + Llk·fs·n·IL — the switch duty's own volt-seconds Vin·D.
+  test.each(Object.entries(SPECS))('%s: Vcl = 1.2·Vin,min·Dlim/(1 − Dlim), covering the switch duty’s own 1.2·Vin,min·D/(1 − D)', (_n, raw) => {
+    const r = evaluateNormalised(spec(raw)).results.find((x) => x.scheme === 'rcd-clamp')!;
+    const dt = r.duty.atVinMin;
+    const dl = r.dutyLimit;
+    expect(rel(r.clampCapacitorV!, (1.2 * raw.vinMinV * dl) / (1 - dl))).toBeLessThan(1e-12);
+    expect(r.clampCapacitorV!).toBeGreaterThanOrEqual((1.2 * raw.vinMinV * dt) / (1 - dt));
+    // The leakage-free form 1.2·K/(1 − Dlim) falls short by the leakage's share of the duty.
+    expect(r.clampCapacitorV!).toBeGreaterThan((1.2 * r.details.voltSecondsV) / (1 - dl) * 1.01);
+  });
+});
+
+describe('9. no reported duty exceeds its limit (derived: the turns ratio is solved at the limit with the settled leakage)', () => {
+  const rawSpec = fc.record({
+    vinMinV: fc.double({ min: 10, max: 450, noNaN: true }),
+    ratio: fc.double({ min: 1, max: 2.5, noNaN: true }),
+    voutV: fc.double({ min: 1.8, max: 48, noNaN: true }),
+    poutW: fc.double({ min: 2, max: 600, noNaN: true }),
+    fswHz: fc.double({ min: 50e3, max: 1e6, noNaN: true }),
+    rectifier: fc.constantFrom('diode', 'synchronous'),
+  }).map((r) => ({
+    vinMinV: r.vinMinV, vinNomV: r.vinMinV, vinMaxV: Math.min(1500, r.vinMinV * r.ratio),
+    voutV: r.voutV, ioutA: r.poutW / r.voutV, fswHz: r.fswHz, rectifier: r.rectifier,
+  }));
+  test('dutyAtVinMin ≤ dutyLimit exactly, unless a duty failure says why', () => {
+    fc.assert(fc.property(rawSpec, fc.constantFrom(...SCHEME_IDS), (raw, id) => {
+      const d = designScheme(spec(raw), id, index);
+      if (d.fails.includes('duty-cannot-reach-output') || d.fails.includes('leakage-commutation')) return;
+      expect(d.dutyAtVinMin).toBeLessThanOrEqual(d.dutyLimit);
+    }), { numRuns: 400 });
+  });
+  test.each(Object.entries(SPECS))('%s: every scheme at or below its limit', (_n, raw) => {
+    for (const r of evaluateNormalised(spec(raw)).results) expect(r.duty.atVinMin).toBeLessThanOrEqual(r.dutyLimit);
+  });
+});
+
+describe('warnings an expert expects (thresholds in assumptions.ts)', () => {
+  const codes = (raw: Record<string, unknown>, id: string): string[] =>
+    evaluateNormalised(spec(raw)).results.find((r) => r.scheme === id)!.findings.map((f) => f.code);
+  test('minimum on-time: the active clamp at 10:1 input and a 175 ns on-time is warned (blanking + controller minimum, common practice)', () => {
+    const raw = { vinMinV: 40, vinNomV: 200, vinMaxV: 400, voutV: 12, ioutA: 5, fswHz: 500e3 };
+    const r = evaluateNormalised(spec(raw)).results.find((x) => x.scheme === 'active-clamp')!;
+    const tOnS = r.duty.atVinMax / raw.fswHz;
+    expect(tOnS).toBeLessThan(300e-9);
+    expect(r.findings.map((f) => f.code)).toContain('short-on-time');
+  });
+  test('an efficiency far below any sensible target is warned even without a target (1 W output)', () => {
+    expect(codes({ vinMinV: 36, vinNomV: 48, vinMaxV: 75, voutV: 3.3, ioutA: 0.3, fswHz: 250e3 }, 'rcd-clamp')).toContain('low-efficiency');
+  });
+  test('switching frequency outside the core material’s loss-data range is warned', () => {
+    const r = evaluateNormalised(spec({ ...TELECOM, fswHz: 2e6 })).results[0]!;
+    expect(r.findings.map((f) => f.code)).toContain('core-data-frequency');
+  });
+  test('a duty that cannot be reached is reported as not reachable, never as a number above 1', () => {
+    const raw = { ...TELECOM, overrides: { 'two-switch': { turnsRatio: 0.2 } } };
+    const r = evaluateNormalised(spec(raw)).results.find((x) => x.scheme === 'two-switch')!;
+    const f = r.findings.find((x) => x.code === 'duty-cannot-reach-output')!;
+    expect(f.message).toContain('not reachable');
+    expect(f.message).not.toMatch(/duty 1\.\d/);
+  });
+  test('turns set by a high-line transient say so (tertiary, RCD, resonant)', () => {
+    for (const id of ['tertiary-winding', 'rcd-clamp', 'resonant-reset'] as const) {
+      const d = designScheme(spec(SERVER), id, index);
+      if (d.fluxLimitedBy === 'transient') expect(codes(SERVER, id)).toContain('turns-set-by-transient');
+    }
+    expect((['tertiary-winding', 'rcd-clamp', 'resonant-reset'] as const).some((id) => designScheme(spec(SERVER), id, index).fluxLimitedBy === 'transient')).toBe(true);
+  });
+});
