@@ -17,6 +17,17 @@ export const SPIKE_FRACTION = 0.1;
 export const RAIL_CLAMP_OVERSHOOT = 0.05;
 /** Active clamp: clamp-capacitor ripple design ratio ΔVc/Vc (peak-to-peak). [CP] */
 export const CLAMP_RIPPLE_RATIO = 0.1;
+/**
+ * Insulation between primary and secondary layers when the leakage is estimated from the build: three layers of
+ * 50 µm polyester tape. [CP]
+ */
+export const INTERWINDING_INSULATION_M = 0.15e-3;
+/**
+ * Share of the primary–secondary leakage left between a bifilar (tightly coupled) primary and reset winding: the two
+ * share every layer, so the field between them spans about one conductor instead of the whole build. At turn-off the
+ * reset winding clamps the primary and returns the rest of the leakage energy to the input. [CP]
+ */
+export const BIFILAR_LEAKAGE_SHARE = 0.1;
 /** Transformer winding + layout capacitance at the drain node. [CP] */
 export const WINDING_CAPACITANCE_F = 50e-12;
 /** Rds(on) at 100–125 °C ≈ 1.5–2 × the 25 °C value; 1.6 used. [CP] */

@@ -50,7 +50,9 @@ export const specInputSchema = z.strictObject({
   rectifier: z.enum(['diode', 'synchronous']).default('diode').describe("output rectifier kind; default 'diode'"),
   maxDuty: num(0.1, 0.95).default(0.75).describe('controller maximum duty; default 0.75'),
   voltageDerating: num(0.3, 1).default(0.8).describe('share of a voltage rating that may be used; default 0.8'),
-  leakageRatio: num(0, 0.2).default(0.003).describe('leakage/magnetizing inductance Llk/Lm; default 0.003'),
+  leakageRatio: num(0, 0.2).nullable().optional().describe('leakage/magnetizing inductance Llk/Lm instead of the estimate from the transformer build; default none (null: estimated)'),
+  windingArrangement: z.enum(['non-interleaved', 'interleaved']).default('non-interleaved')
+    .describe("transformer windings, for the leakage estimate: 'interleaved' splits the primary around the secondary (P–S–P); default 'non-interleaved'"),
   resetTurnsRatio: num(0.1, 10).default(1).describe('tertiary Nr/Np; default 1'),
   activeClampVariant: z.enum(['high-side', 'low-side']).default('high-side').describe("active-clamp variant; default 'high-side'"),
   weights: weightsSchema.optional().describe('score weights; default stress 0.25, dutyHeadroom 0.1, partCount 0.15, cost 0.25, efficiency 0.25'),
@@ -65,8 +67,10 @@ export type SchemeOverride = z.output<typeof schemeOverrideSchema>;
 export type ScoreWeights = z.output<typeof weightsSchema>;
 
 /** A requirement set with every default filled. */
-export interface NormalisedSpec extends Omit<z.output<typeof specInputSchema>, 'schemes' | 'voutRippleV' | 'targetEfficiency' | 'targetUnitCost' | 'weights' | 'overrides'> {
+export interface NormalisedSpec extends Omit<z.output<typeof specInputSchema>, 'schemes' | 'voutRippleV' | 'targetEfficiency' | 'targetUnitCost' | 'leakageRatio' | 'weights' | 'overrides'> {
   schemes: (typeof SCHEME_IDS)[number][];
+  /** Llk/Lm given by the user; null: estimated from the transformer build (engine/magnetics/leakage.ts). */
+  leakageRatio: number | null;
   voutRippleV: number;
   targetEfficiency: number | null;
   targetUnitCost: number | null;
@@ -146,6 +150,7 @@ export function parseSpecInput(raw: unknown): { ok: true; value: NormalisedSpec 
     voutRippleV: p.voutRippleV ?? 0.01 * p.voutV,
     targetEfficiency: p.targetEfficiency ?? null,
     targetUnitCost: p.targetUnitCost ?? null,
+    leakageRatio: p.leakageRatio ?? null,
     weights: p.weights ?? { ...DEFAULT_WEIGHTS },
     overrides: p.overrides ?? {},
   };

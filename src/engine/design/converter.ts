@@ -5,7 +5,7 @@ import type { MosfetPart, RectifierPart } from '../parts/types';
 import { unitPriceAt } from '../parts/index-library';
 import { picked, selectCapacitor, selectInductor, selectMosfet, selectRectifier } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
-import { rippleAtA, turnsRatioWithLeakage } from './duty';
+import { leakageShare, rippleAtA, turnsRatioWithLeakage } from './duty';
 import type { Design } from './types';
 
 /**
@@ -29,6 +29,16 @@ function rectifierDrop(d: Design): number {
 }
 
 /**
+ * Rectifier reverse voltages: forward D1 n × the reset voltage, worst end of the range; freewheel D2 n·Vin,max (derived
+ * by volt-second balance on the transformer). The pipeline sets them again once the design has settled, since the reset
+ * voltage can read the leakage of the last pass.
+ */
+export function setRectifierVoltages(d: Design, model: ResetSchemeModel): void {
+  d.rectForwardV = d.turnsRatio * Math.max(model.resetVoltageV(d, d.spec.vinMinV), model.resetVoltageV(d, d.spec.vinMaxV));
+  d.rectFreewheelV = d.turnsRatio * d.spec.vinMaxV;
+}
+
+/**
  * Rectifier reverse voltages (forward D1: n × reset voltage, worst end of the range; freewheel D2:
  * n·Vin,max; derived by volt-second balance on the transformer) and the cheapest part blocking
  * both with derating.
@@ -36,8 +46,7 @@ function rectifierDrop(d: Design): number {
 export function chooseRectifier(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
   const forcedId = d.ov?.partIds?.rectifier;
-  d.rectForwardV = d.turnsRatio * Math.max(model.resetVoltageV(d, s.vinMinV), model.resetVoltageV(d, s.vinMaxV));
-  d.rectFreewheelV = d.turnsRatio * s.vinMaxV;
+  setRectifierVoltages(d, model);
   const vr = Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating;
   const dutyWorst = Math.max(d.dutyLimit, 1 - d.kV / s.vinMaxV);
   if (forcedId) {
@@ -100,7 +109,7 @@ function ratioAtDutyLimit(d: Design): number {
   const s = d.spec;
   const c = d.leakageCoefficientV;
   if (!(c > 0)) return turnsRatioFor(s.voutV, d.dropsV, d.dutyLimit, s.vinMinV);
-  const n = turnsRatioWithLeakage(s.voutV + d.dropsV, s.leakageRatio, c, d.dutyLimit, s.vinMinV);
+  const n = turnsRatioWithLeakage(s.voutV + d.dropsV, leakageShare(d), c, d.dutyLimit, s.vinMinV);
   return Number.isFinite(n) ? n : (d.dutyLimit * s.vinMinV) / (2 * c);
 }
 

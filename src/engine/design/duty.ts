@@ -38,6 +38,11 @@ export function rippleAtA(d: Design, vinV: number): number {
   return (a * (1 - (d.kV + lf * magnetizingSwingA(d)) / vinV)) / (1 + (a * d.turnsRatio * lf) / vinV);
 }
 
+/** Llk/Lm of the design so far (0 before Lm is known): the spec's ratio or the build's estimate. */
+export function leakageShare(d: Design): number {
+  return hasLeakage(d) ? d.llkH / d.lmH : 0;
+}
+
 /** Volt-seconds × fs taken by the leakage at an input voltage, Llk·fs·(n·IL,max + ΔIm) (V; 0 before Llk is known). */
 export function leakageVoltSecondsV(d: Design, vinV: number): number {
   if (!designed(d)) return 0;

@@ -1,6 +1,7 @@
 import {
-  CORE_LOSS_DENSITY_W_PER_M3, CURRENT_DENSITY_A_PER_M2, FLUX_MARGIN, HOT_C, KU_EFFECTIVE,
+  CORE_LOSS_DENSITY_W_PER_M3, CURRENT_DENSITY_A_PER_M2, FLUX_MARGIN, HOT_C, INTERWINDING_INSULATION_M, KU_EFFECTIVE,
 } from '../assumptions';
+import { leakageInductanceH, leakageThicknessM, windowShapeM } from '../magnetics/leakage';
 import { areaProductM4, forwardApparentPowerW, windingLossW } from '../magnetics/area-product';
 import { coreLossDensityWPerM3, igseWaveformFactor, peakFluxForLossDensityT } from '../magnetics/steinmetz';
 import { unitPriceAt } from '../parts/index-library';
@@ -88,6 +89,18 @@ function setMagnetizing(d: Design, model: ResetSchemeModel, core: CorePart): voi
   d.bAvailableT = (2 * core.bsatT * half) / d.magnetizingPeakA;
 }
 
+/**
+ * Primary–secondary leakage from the build of the chosen core (magnetics/leakage.ts, McLyman ch. 17 [M]): the windings
+ * fill `windowFill` of the window's height h (their build a1 + a2), the window's breadth b is the family's, and the
+ * layers are interleaved or not as the spec says.
+ */
+function estimatedLeakageH(d: Design, core: CorePart): number {
+  const w = windowShapeM(core.waM2, core.shapeFamily);
+  const build = Math.min(1, d.windowFill) * w.heightM;
+  const t = leakageThicknessM(d.spec.windingArrangement, build, INTERWINDING_INSULATION_M);
+  return leakageInductanceH(d.turnsPrimary, core.mltM, t, w.breadthM);
+}
+
 /** Skin depth of hot copper and the thickest AWG strand ≤ 2·δ at `fHz` (memo of the last call). */
 function skinAt(fHz: number): typeof skin {
   if (skin.fHz !== fHz) {
@@ -154,7 +167,7 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const core = d.core;
   if (d.windowFill > 1) d.fails.push('windings-do-not-fit');
   d.lmH = core.alH * d.turnsPrimary * d.turnsPrimary;
-  d.llkH = s.leakageRatio * d.lmH;
+  d.llkH = s.leakageRatio !== null ? s.leakageRatio * d.lmH : estimatedLeakageH(d, core);
   setMagnetizing(d, model, core);
   if (d.bTransientT > d.bAvailableT) d.fails.push('flux-above-saturation');
   const sk = skinAt(s.fswHz);

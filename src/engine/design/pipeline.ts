@@ -4,11 +4,11 @@ import { schemeModel } from '../registry';
 import type { SchemeId } from '../scheme-ids';
 import { subScores, weightedScore } from '../score';
 import { costAndCount } from './bom';
-import { chooseRectifier, designConversion, designFilter } from './converter';
+import { chooseRectifier, designConversion, designFilter, setRectifierVoltages } from './converter';
 import { designMagnetics } from './magnetics';
 import { efficiencyOf, lossesAt } from './operating-point';
 import { newDesign, resetDesign } from './record';
-import { leakageCoefficientV, leakageVoltSecondsV, switchDutyAt, turnsRatioWithLeakage } from './duty';
+import { leakageCoefficientV, leakageShare, leakageVoltSecondsV, switchDutyAt, turnsRatioWithLeakage } from './duty';
 import { designCurrents, designSnubber, designStress } from './stress';
 import type { Design } from './types';
 import type { ResetSchemeModel } from '../schemes/types';
@@ -50,8 +50,14 @@ function frontStages(d: Design, model: ResetSchemeModel): void {
 /** Passes after the first are repeated while c = Llk·IL,max·fs moves by more than this share (Llk depends on Np and the core). */
 export const LEAKAGE_SETTLE = 1e-2;
 
-/** Relative step above the found leakage coefficient when the turns ratio is solved again at the limit (keeps D ≤ Dlim against rounding). */
-const TRIM_SHARE = 1e-9;
+/**
+ * Relative step above the found leakage coefficient when the turns ratio is solved again at the limit: a little above, so
+ * that the duty lands at or below the limit although the estimated leakage itself grows a hair with the ratio (its
+ * window fill); the duty then sits below the limit by about this share of the leakage term (~1e-8).
+ */
+const TRIM_SHARE = 1e-6;
+/** Most trim passes (each a run of the front stages); two or three are usual. */
+const TRIM_PASSES = 10;
 
 function runStages(d: Design): Design {
   return designBack(designFront(d));
@@ -82,21 +88,33 @@ export function designFront(d: Design): Design {
   setSwitchDuties(d);
   // The passes stop once c has settled to 1 %, so the duty at Vin,min can still sit a little above the limit (by up to
   // 1 % of the leakage share). Solve the turns ratio again with the leakage the design now has (a hair above it, so the
-  // duty lands at or just below the limit) until it holds; each pass only lets c grow, as above.
-  for (let trim = 0; trim < 6 && d.core && !d.ov?.turnsRatio && d.dutyAtVinMin > d.dutyLimit; trim++) {
+  // duty lands at or just below the limit) until it holds; each pass only lets c grow, as above. The estimated leakage
+  // grows with the ratio (through the window fill), so c is a fixed point c = f(c): a secant step on f(c) − c reaches it
+  // in a few passes where the plain step creeps (its slope can be 0.2–0.5 after the turns step up).
+  let setC = NaN;
+  let gotC = NaN;
+  for (let trim = 0; trim < TRIM_PASSES && d.core && !d.ov?.turnsRatio && d.dutyAtVinMin > d.dutyLimit; trim++) {
     const found = leakageCoefficientV(d, spec.vinMinV);
     if (!(found > 0) || d.kV + leakageVoltSecondsV(d, spec.vinMinV) >= spec.vinMinV) break;
-    d.leakageCoefficientV = Math.max(found, d.leakageCoefficientV) * (1 + TRIM_SHARE);
+    const plain = Math.max(found, d.leakageCoefficientV);
+    const slope = (found - gotC) / (d.leakageCoefficientV - setC);
+    const secant = slope >= 0 && slope < 0.9 ? d.leakageCoefficientV + (found - d.leakageCoefficientV) / (1 - slope) : plain;
+    setC = d.leakageCoefficientV;
+    gotC = found;
+    d.leakageCoefficientV = Math.max(plain, secant) * (1 + TRIM_SHARE);
     d.fails.length = 0;
     frontStages(d, model);
     setSwitchDuties(d);
   }
   const leakageAtMinV = leakageVoltSecondsV(d, spec.vinMinV);
   d.leakageDropV = d.turnsRatio * leakageAtMinV;
-  if (d.dutyAtVinMin > d.dutyLimit) {
+  // The reverse voltages were set before the last pass's leakage was known: set them from the settled design (a design
+  // whose duty cannot be reached keeps those of its passes, which stay defined).
+  if (d.dutyAtVinMin <= d.dutyLimit) setRectifierVoltages(d, model);
+  else {
     // No turns ratio at all reaches the output once the leakage takes its share: say so rather than "raise n".
     const c = leakageCoefficientV(d, spec.vinMinV);
-    const noRatio = !d.ov?.turnsRatio && c > 0 && !Number.isFinite(turnsRatioWithLeakage(spec.voutV + d.dropsV, spec.leakageRatio, c, d.dutyLimit, spec.vinMinV));
+    const noRatio = !d.ov?.turnsRatio && c > 0 && !Number.isFinite(turnsRatioWithLeakage(spec.voutV + d.dropsV, leakageShare(d), c, d.dutyLimit, spec.vinMinV));
     d.fails.push(noRatio ? 'leakage-commutation' : 'duty-cannot-reach-output');
   }
   return d;
@@ -115,7 +133,7 @@ export function designBack(d: Design): Design {
       chooseRectifier(d, model);
       if (!d.rectSr && !d.rectDiode) d.fails.push('no-rectifier');
     }
-    designSnubber(d);
+    designSnubber(d, model);
     lossesAt(d, model, spec.vinNomV, 1, d.lossesW);
     d.efficiency = efficiencyOf(d.poutW, d.lossesW.total);
   }

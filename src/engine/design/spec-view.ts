@@ -10,8 +10,8 @@ export function newSpecView(): NormalisedSpec {
   return {
     vinMinV: 0, vinNomV: 0, vinMaxV: 0, voutV: 0, ioutA: 0, fswHz: 0, schemes: [], rippleRatio: 0,
     voutRippleV: 0, ambientC: 0, annualVolume: 0, targetEfficiency: null, targetUnitCost: null,
-    rectifier: 'diode', maxDuty: 0, voltageDerating: 0, leakageRatio: 0, resetTurnsRatio: 0,
-    activeClampVariant: 'high-side',
+    rectifier: 'diode', maxDuty: 0, voltageDerating: 0, leakageRatio: null, windingArrangement: 'non-interleaved',
+    resetTurnsRatio: 0, activeClampVariant: 'high-side',
     weights: { stress: 0, dutyHeadroom: 0, partCount: 0, cost: 0, efficiency: 0 },
     overrides: {},
   };
@@ -36,6 +36,7 @@ export function copySpec(v: NormalisedSpec, spec: NormalisedSpec): NormalisedSpe
   v.maxDuty = spec.maxDuty;
   v.voltageDerating = spec.voltageDerating;
   v.leakageRatio = spec.leakageRatio;
+  v.windingArrangement = spec.windingArrangement;
   v.resetTurnsRatio = spec.resetTurnsRatio;
   v.activeClampVariant = spec.activeClampVariant;
   copyWeights(v.weights, spec.weights);

@@ -75,13 +75,13 @@ export function designStress(d: Design, model: ResetSchemeModel): void {
   if (!model.leakageClamped) {
     pickMainSwitch(d, (base + SPIKE_FRACTION * d.switchPeakV) / s.voltageDerating, forcedId);
     const cNode = (d.mainSwitch ? d.mainSwitch.cossF * d.mainQty : 0) + WINDING_CAPACITANCE_F + (d.addedCF > 0 ? d.addedCF : 0);
-    const raw = leakageSpikeV(d.primaryPeakA, d.llkH, cNode);
+    const raw = leakageSpikeV(d.primaryPeakA, model.spikeLeakageH(d), cNode);
     d.snubberNeeded = raw > SPIKE_FRACTION * d.switchPeakV;
     d.spikeV = Math.min(raw, SPIKE_FRACTION * d.switchPeakV);
     if (d.snubberNeeded) {
       // Cs so that Ip·√(Llk/(Cnode + Cs)) = 10 % of the peak (derived).
       const vMax = SPIKE_FRACTION * d.switchPeakV;
-      d.snubberCapF = Math.max(0, d.llkH * (d.primaryPeakA / vMax) ** 2 - cNode);
+      d.snubberCapF = Math.max(0, model.spikeLeakageH(d) * (d.primaryPeakA / vMax) ** 2 - cNode);
     }
   }
   d.switchStressV = base + d.spikeV;
@@ -92,12 +92,12 @@ export function designStress(d: Design, model: ResetSchemeModel): void {
 }
 
 /** Snubber (diode + R + C) parts for an unclamped scheme whose leakage spike needs limiting (common practice). */
-export function designSnubber(d: Design): void {
+export function designSnubber(d: Design, model: ResetSchemeModel): void {
   if (!d.snubberNeeded) return;
   const s = d.spec;
   const ix = d.index;
   const vR = d.switchStressV;
-  const pW = 0.5 * d.llkH * d.primaryPeakA * d.primaryPeakA * s.fswHz;
+  const pW = 0.5 * model.spikeLeakageH(d) * d.primaryPeakA * d.primaryPeakA * s.fswHz;
   const di = selectRectifier(ix.clampDiodes, d.prices.clampDiodes, vR / s.voltageDerating, pW / Math.max(d.switchPeakV, 1));
   d.snubberDiode = di >= 0 ? ix.clampDiodes[di]! : null;
   d.snubberDiodePrice = di >= 0 ? d.prices.clampDiodes[di]! : 0;

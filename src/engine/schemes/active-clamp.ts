@@ -150,6 +150,7 @@ export const activeClamp: ResetSchemeModel = {
     d.lowSideDrivers = highSide ? 1 : 2;
     d.highSideDrivers = highSide ? 1 : 0;
   },
+  spikeLeakageH: () => 0,
   magnetizingOffsetA: magnetizingOffsetAt,
   // Cc resets Lm over the whole off time (derived: volt-seconds on Lm).
   fluxFallShare: (d, vinV) => Math.max(0, 1 - d.kV / vinV),

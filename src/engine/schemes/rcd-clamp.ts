@@ -67,6 +67,7 @@ export const rcdClamp: ResetSchemeModel = {
     chooseClampDiode(d, d.spec.vinMaxV + d.clampV, p / d.clampV, 1);
     d.lowSideDrivers = 1;
   },
+  spikeLeakageH: () => 0,
   magnetizingOffsetA: () => 0,
   // Reset at −Vcl: the flux falls in K/Vcl of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d) => Math.min(1, d.kV / d.clampV),

@@ -63,6 +63,8 @@ export const resonantReset: ResetSchemeModel = {
     if (d.addedCF > 0) chooseClampCap(d, d.addedCF, s.vinMaxV + d.resonantPeakV);
     d.lowSideDrivers = 1;
   },
+  // Nothing catches the leakage at turn-off: its energy rings into Cr (the spike the snubber limits).
+  spikeLeakageH: (d) => d.llkH,
   magnetizingOffsetA: () => 0,
   // Cr is chosen so that half a resonant period fills 1 − Dr of the period; the half-cosine fall is taken as linear over
   // that time (its iGSE is about 7 % higher at α = 1.4; see src/engine/README.md).

@@ -1,3 +1,4 @@
+import { BIFILAR_LEAKAGE_SHARE } from '../assumptions';
 import { chooseClampDiode, vfOf, withMargin } from './common';
 import type { ResetSchemeModel } from './types';
 
@@ -22,7 +23,7 @@ export const tertiaryWinding: ResetSchemeModel = {
     offState: 'Vds = Vin·(1 + Np/Nr)',
     transient: 'Vds = Vin,max·(1 + Np/Nr) (independent of D; D must be hard-limited)',
     forwardReverse: 'VR(D1) = n·Vin·Np/Nr',
-    resetLoss: 'P = VF·Im,pk·D/2 + ½·Llk·Ip²·fs (reset diode + leakage energy in the snubber)',
+    resetLoss: 'P = VF·Im,pk·D/2 + ½·Llk,pr·Ip²·fs (reset diode + the primary–reset leakage energy in the snubber; Llk,pr = 10 % of Llk, bifilar)',
     source: 'Erickson & Maksimović 2nd ed. §6.3.4 [M]; Mohan, Undeland & Robbins ch. 10 [M]; Hart §7.4 [M]',
   },
   resetDutyLimit: (spec) => 1 / (1 + spec.resetTurnsRatio),
@@ -40,10 +41,13 @@ export const tertiaryWinding: ResetSchemeModel = {
     chooseClampDiode(d, d.spec.vinMaxV * (1 + d.resetTurnsRatio), d.magnetizingPeakA * d.dutyAtVinMin / 2, 1);
     d.lowSideDrivers = 1;
   },
+  // The reset winding, bifilar with the primary, clamps it at turn-off and returns the primary–secondary leakage energy
+  // to the input; only the leakage between primary and reset winding rings into the drain (BIFILAR_LEAKAGE_SHARE).
+  spikeLeakageH: (d) => BIFILAR_LEAKAGE_SHARE * d.llkH,
   magnetizingOffsetA: () => 0,
   // The reset winding puts Vin/r on Lm (r = Nr/Np), so the flux falls in K·r/Vin of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d, vinV) => Math.min(1, (d.kV * d.resetTurnsRatio) / vinV),
   resetLossW(d, _vinV, duty, primaryPeakA) {
-    return vfOf(d) * d.magnetizingPeakA * duty / 2 + 0.5 * d.llkH * primaryPeakA * primaryPeakA * d.spec.fswHz;
+    return vfOf(d) * d.magnetizingPeakA * duty / 2 + 0.5 * this.spikeLeakageH(d) * primaryPeakA * primaryPeakA * d.spec.fswHz;
   },
 };

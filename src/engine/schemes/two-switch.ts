@@ -38,6 +38,7 @@ export const twoSwitch: ResetSchemeModel = {
     chooseClampDiode(d, d.spec.vinMaxV, d.magnetizingPeakA * d.dutyAtVinMin / 2 + 0.1 * d.primaryPeakA, 2);
     d.highSideDrivers = 1;
   },
+  spikeLeakageH: () => 0,
   magnetizingOffsetA: () => 0,
   // Reset at −Vin through the clamp diodes: the flux falls in K/Vin of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d, vinV) => Math.min(1, d.kV / vinV),

@@ -58,6 +58,11 @@ export interface ResetSchemeModel {
    * sets. 0 for the unipolar schemes (they start from zero each period) and for a lossless resonant reset.
    */
   magnetizingOffsetA(d: Design, vinV: number): number;
+  /**
+   * Leakage inductance whose energy nothing returns at turn-off (H): it rings into the drain node as the spike a snubber
+   * limits and dissipates. 0 where the reset network clamps the leakage.
+   */
+  spikeLeakageH(d: Design): number;
   /** Share of the period over which the flux falls back during reset at vinV (the iGSE core loss reads it). */
   fluxFallShare(d: Design, vinV: number): number;
   /** Reset/clamp loss at vinV and load (W), excluding nothing the common terms already count. */

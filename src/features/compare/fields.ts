@@ -5,7 +5,7 @@ export type NumericFieldKey =
   | 'vinMinV' | 'vinNomV' | 'vinMaxV' | 'voutV' | 'ioutA' | 'fswHz' | 'voutRippleV' | 'rippleRatio'
   | 'ambientC' | 'annualVolume' | 'targetEfficiency' | 'targetUnitCost' | 'maxDuty' | 'voltageDerating'
   | 'leakageRatio' | 'resetTurnsRatio';
-export type ChoiceFieldKey = 'rectifier' | 'activeClampVariant';
+export type ChoiceFieldKey = 'rectifier' | 'activeClampVariant' | 'windingArrangement';
 export type FieldKey = NumericFieldKey | ChoiceFieldKey;
 
 export interface NumericField {
@@ -43,13 +43,14 @@ export const NUMERIC_FIELDS: NumericField[] = [
   { key: 'ambientC', label: 'Ambient', kind: 'degC', required: false, group: 'targets', hint: '°C; default 40' },
   { key: 'maxDuty', label: 'Controller duty limit', kind: 'ratio', percent: true, required: false, group: 'design', hint: 'default 75 %' },
   { key: 'voltageDerating', label: 'Voltage derating', kind: 'ratio', percent: true, required: false, group: 'design', hint: 'share of a rating that may be used; default 80 %' },
-  { key: 'leakageRatio', label: 'Leakage / magnetizing', kind: 'ratio', percent: true, required: false, group: 'design', hint: 'Llk / Lm; default 0.3 %' },
+  { key: 'leakageRatio', label: 'Leakage / magnetizing', kind: 'ratio', percent: true, required: false, group: 'design', hint: 'Llk / Lm; empty: estimated from the transformer build' },
   { key: 'resetTurnsRatio', label: 'Tertiary Nr/Np', kind: 'ratio', required: false, group: 'design', hint: 'reset-winding turns ratio; default 1' },
 ];
 
 export const CHOICE_FIELDS: ChoiceField[] = [
   { key: 'rectifier', label: 'Output rectifier', group: 'design', hint: '', options: [{ value: 'diode', label: 'Diodes' }, { value: 'synchronous', label: 'Synchronous MOSFETs' }] },
   { key: 'activeClampVariant', label: 'Active-clamp variant', group: 'design', hint: '', options: [{ value: 'high-side', label: 'High-side (N-MOSFET)' }, { value: 'low-side', label: 'Low-side (P-MOSFET)' }] },
+  { key: 'windingArrangement', label: 'Transformer windings', group: 'design', hint: 'sets the leakage estimate', options: [{ value: 'non-interleaved', label: 'Primary, then secondary' }, { value: 'interleaved', label: 'Interleaved (P–S–P)' }] },
 ];
 
 const UNIT_OF: Partial<Record<QuantityKind, string>> = { V: 'V', A: 'A', Hz: 'Hz', F: 'F', H: 'H', W: 'W' };

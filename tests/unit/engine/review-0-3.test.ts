@@ -7,6 +7,7 @@ import { describe, expect, test } from 'vitest';
 import { designScheme } from '../../../src/engine/design/pipeline';
 import { lossesAt } from '../../../src/engine/design/operating-point';
 import { rippleAtA } from '../../../src/engine/design/duty';
+import { leakageInductanceH, leakageThicknessM, windowShapeM } from '../../../src/engine/magnetics/leakage';
 import { evaluateNormalised } from '../../../src/engine/evaluate';
 import { indexLibrary } from '../../../src/engine/parts/index-library';
 import { demoPartsLibrary } from '../../../src/engine/parts/demo-library';
@@ -15,7 +16,7 @@ import { SCHEME_IDS } from '../../../src/engine/scheme-ids';
 import { activeClampDutyLimit, equalStressDuty } from '../../../src/engine/schemes/active-clamp';
 import { igseWaveformFactor, coreLossDensityWPerM3 } from '../../../src/engine/magnetics/steinmetz';
 import { overlapLossW, capacitiveLossW, transitionTimeS } from '../../../src/engine/losses/semiconductor';
-import { PLATEAU_CURRENT_SHARE, SWITCHING_CHARGE_SHARE } from '../../../src/engine/assumptions';
+import { BIFILAR_LEAKAGE_SHARE, INTERWINDING_INSULATION_M, PLATEAU_CURRENT_SHARE, SWITCHING_CHARGE_SHARE } from '../../../src/engine/assumptions';
 import { INDUSTRIAL, SERVER, spec, TELECOM } from './helpers';
 
 const index = indexLibrary(demoPartsLibrary);
@@ -239,5 +240,75 @@ describe('warnings an expert expects (thresholds in assumptions.ts)', () => {
       if (d.fluxLimitedBy === 'transient') expect(codes(SERVER, id)).toContain('turns-set-by-transient');
     }
     expect((['tertiary-winding', 'rcd-clamp', 'resonant-reset'] as const).some((id) => designScheme(spec(SERVER), id, index).fluxLimitedBy === 'transient')).toBe(true);
+  });
+});
+
+describe('4. leakage estimated from the transformer build (McLyman, Transformer and Inductor Design Handbook 3rd ed. ch. 17 [M]; energy integral derived)', () => {
+  // One-dimensional field across the window breadth b: H rises linearly through the primary build a1, is N·I/b across
+  // the insulation c, and falls linearly through the secondary a2. ½·Llk·I² = ½·µ0·∫H²·dV, dV = MLT·b·dx. The integral
+  // is done numerically here, layer by layer, and compared with the closed form the engine uses.
+  const MU0 = 4e-7 * Math.PI;
+  const energyIntegralH = (turns: number, mlt: number, b: number, sections: { a1: number; c: number; a2: number; share: number }[]): number => {
+    // Each section carries `share` of the primary's ampere-turns across one interface (1 non-interleaved, ½ each P–S–P).
+    let sum = 0;
+    const steps = 20000;
+    for (const s of sections) {
+      const total = s.a1 + s.c + s.a2;
+      for (let k = 0; k < steps; k++) {
+        const x = ((k + 0.5) / steps) * total;
+        const mmf = x < s.a1 ? x / s.a1 : x < s.a1 + s.c ? 1 : (total - x) / s.a2;
+        const h = (s.share * turns * mmf) / b; // per ampere
+        sum += h * h * (total / steps);
+      }
+    }
+    return MU0 * mlt * b * sum;
+  };
+  test('non-interleaved: Llk = µ0·N²·MLT·(c + (a1 + a2)/3)/b equals the energy integral', () => {
+    const [n, mlt, b, a1, c, a2] = [32, 0.061, 0.02, 2.1e-3, 0.15e-3, 2.3e-3];
+    const closed = leakageInductanceH(n, mlt, leakageThicknessM('non-interleaved', a1 + a2, c), b);
+    expect(rel(closed, energyIntegralH(n, mlt, b, [{ a1, c, a2, share: 1 }]))).toBeLessThan(1e-6);
+    // Hand figure: µ0·1024·0.061 m·(0.15 + 4.4/3) mm/20 mm = 1.2868e-3·0.061·1.6167e-3/0.02 = 6.345 µH.
+    expect(closed).toBeCloseTo(6.345e-6, 8);
+  });
+  test('interleaved P–S–P: Llk = µ0·N²·MLT·(2c + (a1 + a2)/3)/(4b) equals the energy integral of two half windows', () => {
+    const [n, mlt, b, a1, c, a2] = [32, 0.061, 0.02, 2.1e-3, 0.15e-3, 2.3e-3];
+    const closed = leakageInductanceH(n, mlt, leakageThicknessM('interleaved', a1 + a2, c), b);
+    const halves = [{ a1: a1 / 2, c, a2: a2 / 2, share: 0.5 }, { a1: a1 / 2, c, a2: a2 / 2, share: 0.5 }];
+    expect(rel(closed, energyIntegralH(n, mlt, b, halves))).toBeLessThan(1e-6);
+    expect(closed).toBeLessThan(leakageInductanceH(n, mlt, leakageThicknessM('non-interleaved', a1 + a2, c), b) / 3);
+  });
+  test.each(SCHEME_IDS)('%s: the design’s Llk comes from its core, turns and window fill; interleaving cuts it; a given ratio overrides it', (id) => {
+    const d = designScheme(spec(TELECOM), id, index);
+    const core = d.core!;
+    const w = windowShapeM(core.waM2, core.shapeFamily);
+    const t = leakageThicknessM('non-interleaved', Math.min(1, d.windowFill) * w.heightM, INTERWINDING_INSULATION_M);
+    expect(rel(d.llkH, leakageInductanceH(d.turnsPrimary, core.mltM, t, w.breadthM))).toBeLessThan(1e-12);
+    // Not the old fixed share of Lm.
+    expect(Math.abs(d.llkH / d.lmH - 0.003)).toBeGreaterThan(1e-5);
+    const inter = designScheme(spec({ ...TELECOM, windingArrangement: 'interleaved' }), id, index);
+    expect(inter.llkH / inter.lmH).toBeLessThan(0.5 * d.llkH / d.lmH);
+    const given = designScheme(spec({ ...TELECOM, leakageRatio: 0.004 }), id, index);
+    expect(given.llkH).toBeCloseTo(0.004 * given.lmH, 15);
+  });
+  test('the window of each core family: b·h = Wa, b/h as tabled', () => {
+    for (const core of demoPartsLibrary.cores) {
+      const w = windowShapeM(core.waM2, core.shapeFamily);
+      expect(rel(w.breadthM * w.heightM, core.waM2)).toBeLessThan(1e-12);
+      expect(w.breadthM).toBeGreaterThan(w.heightM);
+    }
+  });
+  test('tertiary: the bifilar reset winding returns the primary–secondary leakage energy; only 10 % of Llk rings into the snubber', () => {
+    const d = designScheme(spec(SERVER), 'tertiary-winding', index);
+    const model = schemeModel('tertiary-winding');
+    expect(model.spikeLeakageH(d)).toBeCloseTo(BIFILAR_LEAKAGE_SHARE * d.llkH, 18);
+    const l = lossesAt(d, model, d.spec.vinNomV, 1);
+    const ripple = rippleAtA(d, d.spec.vinNomV);
+    const ipk = d.turnsRatio * (d.spec.ioutA + ripple / 2) + d.magnetizingSwingA;
+    const snubberW = 0.5 * BIFILAR_LEAKAGE_SHARE * d.llkH * ipk * ipk * d.spec.fswHz;
+    // Losses are taken at the effective duty K/Vin (design/operating-point.ts).
+    expect(l.resetOrClamp).toBeCloseTo(d.clampDiode!.vfV * d.magnetizingPeakA * (d.kV / d.spec.vinNomV) / 2 + snubberW, 9);
+    // The clamped schemes ring nothing into the drain; the resonant reset rings all of it.
+    expect(schemeModel('rcd-clamp').spikeLeakageH(d)).toBe(0);
+    expect(schemeModel('resonant-reset').spikeLeakageH(d)).toBe(d.llkH);
   });
 });

@@ -15,7 +15,7 @@ describe('parseSpecInput — defaults', () => {
     if (!r.ok) return;
     expect(r.value).toMatchObject({
       rippleRatio: 0.3, voutRippleV: 0.12, ambientC: 40, annualVolume: 1000, targetEfficiency: null, targetUnitCost: null,
-      rectifier: 'diode', maxDuty: 0.75, voltageDerating: 0.8, leakageRatio: 0.003, resetTurnsRatio: 1,
+      rectifier: 'diode', maxDuty: 0.75, voltageDerating: 0.8, leakageRatio: null, windingArrangement: 'non-interleaved', resetTurnsRatio: 1,
       activeClampVariant: 'high-side', overrides: {},
       schemes: ['tertiary-winding', 'rcd-clamp', 'active-clamp', 'two-switch', 'resonant-reset'],
       weights: { stress: 0.25, dutyHeadroom: 0.1, partCount: 0.15, cost: 0.25, efficiency: 0.25 },
