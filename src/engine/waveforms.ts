@@ -1,7 +1,7 @@
 import type { NormalisedSpec } from '../schemas/spec';
 import { commutationDutyAt, rippleAtA, switchDutyAt } from './design/duty';
 import { designScheme } from './design/pipeline';
-import { magnetizingStartAt } from './design/stress';
+import { magnetizingStartAt, ringCapacitanceF } from './design/stress';
 import type { Design } from './design/types';
 import { indexLibrary } from './parts/index-library';
 import { demoPartsLibrary } from './parts/demo-library';
@@ -29,27 +29,65 @@ export interface Waveforms {
 
 const ARC_SAMPLES = 12;
 
-/** Reset interval and shape of the drain voltage during the off time for one scheme (derived by volt-second balance on the magnetizing inductance). */
-function offShape(d: Design, vinV: number, tOffS: number, imEnd: number): { tResetS: number; vReset: (x: number) => number; vAfter: number; imAt: (x: number) => number; vLmOff?: number } {
+/**
+ * Drain voltage and magnetizing current over the off time of one scheme, and the times to sample them at (derived by
+ * volt-second balance on the magnetizing inductance). `knots` run from 0 to tOff; a corner of the drawing sits on one.
+ */
+interface OffShape {
+  knots: number[];
+  v: (x: number) => number;
+  im: (x: number) => number;
+  /** Voltage across Lm during the off time when the secondary sees it (active clamp), else undefined. */
+  vLmOff?: number;
+}
+
+function arcKnots(from: number, length: number, out: number[]): void {
+  for (let j = 1; j <= ARC_SAMPLES; j++) out.push(from + (length * j) / ARC_SAMPLES);
+}
+
+function offShape(d: Design, vinV: number, tOffS: number, imEnd: number): OffShape {
   const model = schemeModel(d.scheme);
-  const im = imEnd;
   const swing = d.magnetizingSwingA;
   const kV = d.kV;
   const tS = 1 / d.spec.fswHz;
   switch (d.scheme) {
-    case 'active-clamp':
+    case 'active-clamp': {
       // Cc holds Vin·D/(1 − D) across Lm + Llk; Lm itself resets with K over the off time (the rest sits on Llk).
-      return { tResetS: tOffS, vReset: () => model.offStateV(d, vinV), vAfter: model.offStateV(d, vinV), imAt: (x) => im - (swing * x) / tOffS, vLmOff: (kV * tS) / tOffS };
+      const vOff = model.offStateV(d, vinV);
+      return { knots: [0, tOffS], v: () => vOff, im: (x) => imEnd - (swing * x) / tOffS, vLmOff: (kV * tS) / tOffS };
+    }
     case 'resonant-reset': {
       const half = Math.PI * Math.sqrt(d.lmH * d.resonantCF);
       const th = Math.min(half, tOffS);
-      return { tResetS: th, vReset: (x) => vinV + d.resonantPeakV * Math.sin((Math.PI * x) / half), vAfter: vinV, imAt: (x) => (x >= th ? -im : im * Math.cos((Math.PI * x) / half)) };
+      const knots = [0];
+      arcKnots(0, th, knots);
+      if (th < tOffS) knots.push(tOffS);
+      return {
+        knots,
+        v: (x) => (x >= th ? vinV : vinV + d.resonantPeakV * Math.sin((Math.PI * x) / half)),
+        im: (x) => (x >= th ? -imEnd : imEnd * Math.cos((Math.PI * x) / half)),
+      };
     }
     default: {
-      const vRes = model.resetVoltageV(d, vinV);
-      const tr = Math.min((kV * tS) / vRes, tOffS);
+      // Reset at the scheme's voltage until the current reaches zero, then the drain rings with Lm back to where it
+      // rests (Vin; Vin/2 per switch in the two-switch forward), leaving −I0 in Lm (design/stress.ts, ringCurrentA).
+      const vOff = model.offStateV(d, vinV);
       const vAfter = d.scheme === 'two-switch' ? vinV / 2 : vinV;
-      return { tResetS: tr, vReset: () => model.offStateV(d, vinV), vAfter, imAt: (x) => (x >= tr ? 0 : im * (1 - x / tr)) };
+      const vr = model.resetVoltageV(d, vinV);
+      const tr = Math.min((imEnd * d.lmH) / vr, tOffS);
+      const c = ringCapacitanceF(d, model);
+      const amplitude = c > 0 ? vr * Math.sqrt(c / d.lmH) : 0;
+      const omega = c > 0 ? 1 / Math.sqrt(d.lmH * c) : Infinity;
+      const tq = Math.min(Math.PI / (2 * omega), tOffS - tr);
+      const knots = [0, tr];
+      if (tq > 0) arcKnots(tr, tq, knots);
+      if (tr + tq < tOffS) knots.push(tOffS);
+      const phase = (x: number): number => Math.min(omega * (x - tr), Math.PI / 2);
+      return {
+        knots,
+        v: (x) => (x <= tr ? vOff : vAfter + (vOff - vAfter) * Math.cos(phase(x))),
+        im: (x) => (x <= tr ? imEnd * (1 - x / tr) : -amplitude * Math.sin(phase(x))),
+      };
     }
   }
 }
@@ -97,18 +135,10 @@ export function waveformsOf(d: Design, vinV: number = d.spec.vinNomV): Waveforms
     sample(t0 + tc, 0, im0, n * ilMin + im0, ilMin, 0);
     sample(t0 + tc, 0, im0, n * ilMin + im0, ilMin, n * vLm);
     sample(t0 + tOn, 0, imEnd, n * ilMax + imEnd, ilMax, n * vLm);
-    const steps = d.scheme === 'resonant-reset' ? ARC_SAMPLES : 1;
-    for (let j = 0; j <= steps; j++) {
-      const x = (shape.tResetS * j) / steps;
-      const im = j === 0 ? imEnd : shape.imAt(x);
-      const v = j === steps && d.scheme === 'resonant-reset' ? shape.vAfter : shape.vReset(x);
-      sample(t0 + tOn + x, v, im, primaryOff(im), ilFalling(x), offSec);
+    for (const x of shape.knots) {
+      const im = x === 0 ? imEnd : shape.im(x);
+      sample(t0 + tOn + x, shape.v(x), im, primaryOff(im), ilFalling(x), shape.vLmOff === undefined ? undefined : offSec);
     }
-    if (shape.tResetS < tOff) {
-      const imReset = shape.imAt(shape.tResetS);
-      sample(t0 + tOn + shape.tResetS, shape.vAfter, imReset, primaryOff(imReset), ilFalling(shape.tResetS));
-    }
-    sample(t0 + tS, shape.vAfter, shape.imAt(tOff), primaryOff(shape.imAt(tOff)), ilFalling(tOff), offSec);
   }
   return w;
 }

@@ -173,7 +173,16 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const sk = skinAt(s.fswHz);
   d.skinDepthM = sk.depthM;
   d.strandAwg = sk.awg;
-  // iGSE (Venkatachalam et al. 2002) for the scheme's flux shape at Vin,nom, where the losses are reported.
+  setCoreLoss(d, model);
+}
+
+/**
+ * Core loss by the iGSE (Venkatachalam et al. 2002) for the scheme's flux shape at Vin,nom, where the losses are
+ * reported. The pipeline sets it again after the reset network is sized, whose clamp voltage sets the RCD's fall time.
+ */
+export function setCoreLoss(d: Design, model: ResetSchemeModel): void {
+  const core = d.core;
+  if (!core) return;
   d.coreLossW = core.veM3 * waveformAtNominal(d, model, core.steinmetzAlpha)
-    * coreLossDensityWPerM3(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, s.fswHz, d.deltaBT / 2);
+    * coreLossDensityWPerM3(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, d.spec.fswHz, d.deltaBT / 2);
 }

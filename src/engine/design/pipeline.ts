@@ -5,11 +5,11 @@ import type { SchemeId } from '../scheme-ids';
 import { subScores, weightedScore } from '../score';
 import { costAndCount } from './bom';
 import { chooseRectifier, designConversion, designFilter, setRectifierVoltages } from './converter';
-import { designMagnetics } from './magnetics';
+import { designMagnetics, setCoreLoss } from './magnetics';
 import { efficiencyOf, lossesAt } from './operating-point';
 import { newDesign, resetDesign } from './record';
 import { leakageCoefficientV, leakageShare, leakageVoltSecondsV, switchDutyAt, turnsRatioWithLeakage } from './duty';
-import { designCurrents, designSnubber, designStress } from './stress';
+import { designCurrents, designSnubber, designStress, settleMagnetizing } from './stress';
 import type { Design } from './types';
 import type { ResetSchemeModel } from '../schemes/types';
 
@@ -127,7 +127,9 @@ export function designBack(d: Design): Design {
   if (d.core) {
     designCurrents(d, model);
     designStress(d, model);
+    settleMagnetizing(d, model);
     model.sizeReset(d);
+    setCoreLoss(d, model);
     if (model.restressAfterReset) {
       designStress(d, model);
       chooseRectifier(d, model);

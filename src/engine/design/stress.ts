@@ -3,6 +3,7 @@ import { unitPriceAt } from '../parts/index-library';
 import type { MosfetPart } from '../parts/types';
 import { picked, selectCapacitor, selectMosfet, selectRectifier, selectResistor } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
+import { switchDutyAt } from './duty';
 import type { Design } from './types';
 
 /**
@@ -22,9 +23,69 @@ export function leakageSpikeV(primaryPeakA: number, llkH: number, nodeCapF: numb
   return primaryPeakA * Math.sqrt(llkH / nodeCapF);
 }
 
-/** Magnetizing current at the start of the on time at vinV: 0 unipolar, offset − ΔIm/2 bipolar (design/magnetics.ts). */
+/**
+ * Capacitance the magnetizing inductance rings with once a unipolar reset has ended: the main switch's Co(er) (the two
+ * switches of the two-switch forward in series across the primary, so half of one) plus the winding capacitance.
+ * 0 before the switch is chosen.
+ */
+export function ringCapacitanceF(d: Design, model: ResetSchemeModel): number {
+  if (!d.mainSwitch) return 0;
+  return (d.mainSwitch.cossF * d.mainQty) / model.seriesSwitches + WINDING_CAPACITANCE_F;
+}
+
+/**
+ * Phase θ ∈ [0, π/2] reached by the drain ring: θ − sin θ = x (Newton; x ≥ π/2 − 1 gives the full quarter, x ≤ 0 none).
+ * See `ringCurrentA` for where the equation comes from.
+ */
+export function ringPhase(x: number): number {
+  if (!(x > 0)) return 0;
+  if (x >= Math.PI / 2 - 1) return Math.PI / 2;
+  let th = Math.min(Math.PI / 2, Math.cbrt(6 * x));
+  for (let k = 0; k < 8; k++) th -= (th - Math.sin(th) - x) / (1 - Math.cos(th));
+  return Math.min(Math.PI / 2, th);
+}
+
+/**
+ * Magnetizing current the drain ring leaves at the next turn-on in a unipolar scheme (A, ≥ 0; the current is −I0).
+ * When the reset current reaches zero the drain sits at Vin + Vr (Vr the reset voltage across the primary) and the node
+ * capacitance C rings with Lm back towards Vin: with the input in the loop C gives up ½·C·Vr², so the current is
+ * −A·sin(ω·t), A = Vr·√(C/Lm), ω = 1/√(Lm·C). At Vin the transformer voltage crosses zero, the secondary rectifiers
+ * short it and the current stays at −A until turn-on. A dead time too short for a quarter period stops it at −A·sin θ.
+ * The period then starts at −I0, so the reset (at Vr, from ΔIm − I0 down to zero) ends I0·Lm/Vr earlier than from
+ * ΔIm: θ = ω·(t0 + I0·Lm/Vr) with t0 = tOff − ΔIm·Lm/Vr, and since ω·Lm/Vr = 1/A that is θ − sin θ = ω·t0 (derived by
+ * volt-second balance on Lm; the ngspice cross-check sees the ring). At most ΔIm/2, see below.
+ */
+export function ringCurrentA(d: Design, model: ResetSchemeModel, vinV: number): number {
+  const c = ringCapacitanceF(d, model);
+  if (model.bipolarFlux || !(c > 0) || !(d.lmH > 0)) return 0;
+  const tOffS = (1 - switchDutyAt(d, vinV)) / d.spec.fswHz;
+  const vr = model.resetVoltageV(d, vinV);
+  const t0 = tOffS - (d.magnetizingSwingA * d.lmH) / vr;
+  const ring = vr * Math.sqrt(c / d.lmH) * Math.sin(ringPhase(t0 / Math.sqrt(d.lmH * c)));
+  // A ring that would leave more than half the swing means the node resets the core by itself, resonantly: the current
+  // then swings ±ΔIm/2 and the drain peaks at Vin + (ΔIm/2)·√(Lm/C), below the clamp (derived; the figures above then
+  // err high).
+  return Math.min(ring, d.magnetizingSwingA / 2);
+}
+
+/**
+ * Magnetizing current at the start of the on time at vinV: −I0 of the drain ring for the unipolar schemes (0 before the
+ * switch is chosen), offset − ΔIm/2 for the bipolar ones (design/magnetics.ts).
+ */
 export function magnetizingStartAt(d: Design, model: ResetSchemeModel, vinV: number): number {
-  return model.bipolarFlux ? model.magnetizingOffsetA(d, vinV) - d.magnetizingSwingA / 2 : 0;
+  return model.bipolarFlux ? model.magnetizingOffsetA(d, vinV) - d.magnetizingSwingA / 2 : -ringCurrentA(d, model, vinV);
+}
+
+/**
+ * Once the main switch is known, a unipolar scheme's magnetizing current starts each period at −I0 (the drain ring):
+ * its peak at turn-off is ΔIm − I0, the larger at the end of the range where the ring leaves less (derived; see
+ * `ringCurrentA`). The primary currents follow.
+ */
+export function settleMagnetizing(d: Design, model: ResetSchemeModel): void {
+  if (model.bipolarFlux) return;
+  d.magnetizingStartA = Math.max(magnetizingStartAt(d, model, d.spec.vinMinV), magnetizingStartAt(d, model, d.spec.vinMaxV));
+  d.magnetizingPeakA = d.magnetizingSwingA + d.magnetizingStartA;
+  designCurrents(d, model);
 }
 
 /**

@@ -2,6 +2,8 @@ import { RCD_CLAMP_MARGIN, RCD_DESIGN_DUTY } from '../assumptions';
 import { E24, E6, snapDownIn, snapUpIn } from '../eseries';
 import { selectResistor } from '../parts/select';
 import { switchDutyAt } from '../design/duty';
+import { setRectifierVoltages } from '../design/converter';
+import { magnetizingStartAt, peakOffStateV, ringCapacitanceF, settleMagnetizing } from '../design/stress';
 import { chooseClampCap, chooseClampDiode, vfOf } from './common';
 import type { ResetSchemeModel } from './types';
 
@@ -10,10 +12,19 @@ function clampRatio(dutyLimit: number): number {
   return (RCD_CLAMP_MARGIN * dutyLimit) / (1 - dutyLimit);
 }
 
-/** Clamp dissipation P_R = fs·(½·Lm·Im,pk² + ½·Llk·Ip,pk²) (derived by energy balance). */
-export function rcdClampLossW(lmH: number, imPkA: number, llkH: number, ipPkA: number, fswHz: number): number {
-  return fswHz * (0.5 * lmH * imPkA * imPkA + 0.5 * llkH * ipPkA * ipPkA);
+/**
+ * Clamp dissipation P_R = fs·(½·Lm·Im,off² + ½·Llk·Ip,pk² − ½·C·Vcl²) (derived by energy balance): at turn-off the
+ * leakage, carrying the primary peak, first lifts the drain node C from Vin to Vin + Vcl while the commutating
+ * secondary holds Lm at 0 V — with the input in the loop, that costs the leakage ½·C·Vcl², which the node gives back to
+ * Lm as the ring after the reset — then the rest of the leakage energy and all of the magnetizing energy (Im,off the
+ * magnetizing current at turn-off) go into the clamp. With C = 0 it is the textbook fs·(½·Lm·Im² + ½·Llk·Ip²).
+ */
+export function rcdClampLossW(lmH: number, imOffA: number, llkH: number, ipPkA: number, nodeCapF: number, clampV: number, fswHz: number): number {
+  return fswHz * (0.5 * lmH * imOffA * imOffA + Math.max(0, 0.5 * llkH * ipPkA * ipPkA - 0.5 * nodeCapF * clampV * clampV));
 }
+
+/** Most fixed-point steps for the clamp voltage a snapped resistor settles at (Vcl moves P only through the ring terms, weakly: 3–6 steps reach 1e-9). */
+const CLAMP_SETTLE_STEPS = 12;
 
 /**
  * Single-switch forward with an RCD clamp across the primary: Vds = Vin + Vcl; reset needs
@@ -35,7 +46,7 @@ export const rcdClamp: ResetSchemeModel = {
     offState: 'Vds = Vin + Vcl, Vcl = 1.2·Vin,min·D/(1 − D) with the switch duty D (leakage commutation included) at Dlim',
     transient: 'Vds → Vin,max/(1 − Dlim) when D reaches its limit at high line',
     forwardReverse: 'VR(D1) = n·Vcl',
-    resetLoss: 'P_R = fs·(½·Lm·Im,pk² + ½·Llk·Ip,pk²)',
+    resetLoss: 'P_R = fs·(½·Lm·Im,off² + ½·Llk·Ip,pk² − ½·C·Vcl²), C the drain node; Vcl = √(P_R·R) with R snapped down to E24',
     source: 'derived (volt-second and energy balance); common practice',
   },
   resetDutyLimit(spec) {
@@ -57,8 +68,25 @@ export const rcdClamp: ResetSchemeModel = {
   transientV: (d) => d.spec.vinMaxV / (1 - d.transientDuty),
   turnOnV: (_d, vinV) => vinV,
   sizeReset(d) {
-    const p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, d.primaryPeakA, d.spec.fswHz);
+    const fs = d.spec.fswHz;
+    const cNode = ringCapacitanceF(d, this);
+    let p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, d.primaryPeakA, cNode, d.clampV, fs);
     d.clampResOhm = snapDownIn((d.clampV * d.clampV) / p, E24);
+    // The E24 resistor, snapped down, holds the clamp a little below its design value: Vcl = √(P·R), where P (the ring
+    // terms) and the ring itself move with Vcl (derived). The switch was chosen for the design value; the figures that
+    // follow Vcl (peak, stress, D1's reverse voltage) are set again from the value the clamp settles at.
+    for (let k = 0; k < CLAMP_SETTLE_STEPS; k++) {
+      const v = Math.sqrt(p * d.clampResOhm);
+      const moved = Math.abs(v - d.clampV);
+      d.clampV = v;
+      settleMagnetizing(d, this);
+      p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, d.primaryPeakA, cNode, d.clampV, fs);
+      if (moved <= 1e-9 * v) break;
+    }
+    d.switchPeakV = peakOffStateV(d, this);
+    d.transientV = Math.max(this.transientV(d), d.switchPeakV);
+    d.switchStressV = d.transientV;
+    setRectifierVoltages(d, this);
     const r = selectResistor(d.index.resistors, p, d.clampV);
     if (r >= 0) { d.clampRes = d.index.resistors[r]!; d.clampResPrice = d.prices.resistors[r]!; } else d.fails.push('no-clamp-part');
     // C ≥ Vcl/(R·fs·ΔVcl) with ΔVcl = 10 % of Vcl (derived; ripple share common practice).
@@ -71,8 +99,9 @@ export const rcdClamp: ResetSchemeModel = {
   magnetizingOffsetA: () => 0,
   // Reset at −Vcl: the flux falls in K/Vcl of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d) => Math.min(1, d.kV / d.clampV),
-  resetLossW(d, _vinV, _duty, primaryPeakA) {
-    const p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, primaryPeakA, d.spec.fswHz);
+  resetLossW(d, vinV, _duty, primaryPeakA) {
+    const imOff = d.magnetizingSwingA + magnetizingStartAt(d, this, vinV);
+    const p = rcdClampLossW(d.lmH, imOff, d.llkH, primaryPeakA, ringCapacitanceF(d, this), d.clampV, d.spec.fswHz);
     return p + vfOf(d) * p / d.clampV;
   },
 };

@@ -86,12 +86,14 @@ describe('engine invariants over random valid specs (fast-check)', () => {
     }), { numRuns: 60 });
   });
   // Without leakage: with it, K = (Vout + drops)/n also moves with the output inductor and core chosen for the wider range
-  // (through Llk·IL,max), so a wider range can shave a little off a clamp voltage designed from K. The resonant reset is
-  // left out: its Cr is the switches' Coss plus an E12 capacitor snapped down, so a wider range that changes the switch
-  // stage (part or number in parallel) can land on a slightly larger Cr and a lower resonant peak (for one design,
-  // Vds = Vin + Vres rises with Vin).
+  // (through Llk·IL,max), so a wider range can shave a little off a clamp voltage designed from K. Two schemes are left
+  // out because a part chosen by value sets their peak: the resonant reset's Cr is the switches' Coss plus an E12
+  // capacitor snapped down, so a wider range that changes the switch stage (part or number in parallel) can land on a
+  // slightly larger Cr and a lower resonant peak; the RCD clamp settles at √(P·R) with R an E24 value snapped down, so a
+  // wider range whose clamp loss lands on another E24 step can sit up to 5 % lower (for one design, Vds = Vin + Vcl or
+  // Vin + Vres rises with Vin; tests/unit/engine/schemes.test.ts bounds the clamp).
   test('raising vinMaxV never lowers switchPeakV without leakage (derived: every Vds(Vin) rises at high line)', () => {
-    fc.assert(fc.property(rawSpec, fc.constantFrom(...SCHEME_IDS.filter((id) => id !== 'resonant-reset')), fc.double({ min: 1, max: 1.5, noNaN: true }), (raw, id, up) => {
+    fc.assert(fc.property(rawSpec, fc.constantFrom(...SCHEME_IDS.filter((id) => id !== 'resonant-reset' && id !== 'rcd-clamp')), fc.double({ min: 1, max: 1.5, noNaN: true }), (raw, id, up) => {
       const higher = { ...raw, leakageRatio: 0, vinMaxV: Math.min(1500, raw.vinMaxV * up) };
       const a = designScheme(spec({ ...raw, leakageRatio: 0 }), id, index);
       const b = designScheme(spec(higher), id, index);

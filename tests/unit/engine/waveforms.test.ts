@@ -23,8 +23,11 @@ describe('idealised waveforms', () => {
     const w = waveforms(s, id);
     const onArea = Math.max(...w.secondaryV.map((p) => p.value)); // n·Vin during the on time after commutation
     const avg = average(w.secondaryV, w.periodS);
-    // Resonant arcs are sampled (12 chords), so allow the chord error there.
-    expect(Math.abs(avg) / onArea).toBeLessThan(id === 'resonant-reset' ? 0.01 : 1e-9);
+    // Arcs are drawn with 12 chords, whose trapezoids miss an arc's area by about h²/12 of it (h the chord's angle):
+    // the resonant half sine (h = π/12) by 0.6 %, the drain ring's quarter cosine after a unipolar reset (h = π/24) by
+    // 0.15 %; the active clamp is drawn with straight lines only.
+    const chordError = id === 'resonant-reset' ? 0.01 : id === 'active-clamp' ? 1e-9 : 2e-3;
+    expect(Math.abs(avg) / onArea).toBeLessThan(chordError);
     expect(w.drainV[w.drainV.length - 1]!.tS).toBeCloseTo(2 * w.periodS, 12);
   });
   test.each(SCHEME_IDS)('%s: the drain peak equals the off-state voltage at that input (derived)', (id) => {
