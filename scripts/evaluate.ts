@@ -33,8 +33,10 @@ function checkLibrary(raw: unknown): PartsLibrary {
   const problems: string[] = [];
   for (const key of ['name', 'version', 'currency']) if (typeof lib[key] !== 'string') problems.push(`parts.${key} must be a string`);
   for (const key of LIBRARY_LISTS) if (!Array.isArray(lib[key])) problems.push(`parts.${key} must be a list`);
+  // A library written before windings were costed has no winding list: it evaluates with uncosted windings (a finding says so).
+  if (lib.windings !== undefined && !Array.isArray(lib.windings)) problems.push('parts.windings must be a list');
   if (problems.length > 0) fail(problems);
-  return raw as PartsLibrary;
+  return { ...(raw as PartsLibrary), windings: (lib.windings as PartsLibrary['windings'] | undefined) ?? [] };
 }
 
 function csv(c: Comparison): string {

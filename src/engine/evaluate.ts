@@ -67,6 +67,7 @@ export function resultOf(d: Design): SchemeResult {
       leakageSpikeV: d.spikeV, primaryPeakA: d.primaryPeakA, inductorRippleA: d.rippleA,
       magnetizingInductanceH: d.lmH, leakageInductanceH: d.llkH, transientFluxSwingT: d.bTransientT,
       availableFluxSwingT: d.bAvailableT, windowFill: d.windowFill, skinDepthM: d.skinDepthM, strandAwg: d.strandAwg,
+      windingCount: d.windingCount, copperMassKg: d.copperMassKg,
       resonantPeakV: nullIfNaN(d.resonantPeakV), resonantCapacitanceF: nullIfNaN(d.resonantCF),
       clampResistorOhm: nullIfNaN(d.clampResOhm), clampCapacitanceF: nullIfNaN(d.clampCapF),
       mainSwitchId: d.mainSwitch?.id ?? null, mainSwitchParallel: d.mainQty, rectifierId: (d.rectSr ?? d.rectDiode)?.id ?? null,

@@ -62,6 +62,10 @@ export interface SchemeResult {
     windowFill: number;
     skinDepthM: number;
     strandAwg: number;
+    /** Transformer windings: primary, secondary and any reset winding. */
+    windingCount: number;
+    /** Copper of all windings at the design current density (kg). */
+    copperMassKg: number;
     resonantPeakV: number | null;
     resonantCapacitanceF: number | null;
     clampResistorOhm: number | null;

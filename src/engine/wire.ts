@@ -7,6 +7,11 @@
 export const COPPER_RESISTIVITY_20C_OHM_M = 1 / 58 * 1e-6;
 /** Temperature coefficient of copper resistivity at 20 °C, 0.00393 /K (IEC 60028 / IACS). */
 export const COPPER_ALPHA_PER_K = 0.00393;
+/**
+ * Density of annealed copper, 8890 kg/m³: the IEC 60028 mass resistivity 0.15328 Ω·g/m² over its resistivity
+ * 1.7241e-8 Ω·m (IEC 60028, as tabled in shared FORMULAS §3.4).
+ */
+export const COPPER_DENSITY_KG_PER_M3 = 0.15328e-3 / COPPER_RESISTIVITY_20C_OHM_M;
 /** Vacuum permeability µ0 (SI, 4π·10⁻⁷ H/m to the precision needed here). */
 export const MU0 = 4e-7 * Math.PI;
 

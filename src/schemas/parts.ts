@@ -106,13 +106,17 @@ export const libraryHeaderSchema = z.object({
   note: z.string().optional(),
 });
 
+/** Categories added after libraries were first stored: a stored version without one has none of those parts. */
+const LATER_CATEGORIES: ReadonlySet<PartCategory> = new Set(['windings']);
+
 /** Checks a stored library JSON; returns the typed library (version filled by the caller). */
 export function parseStoredLibrary(raw: unknown, version: number): PartsLibrary {
   const header = libraryHeaderSchema.parse(raw);
   const record = raw as Record<string, unknown>;
   const library: Record<string, unknown> = { ...header, version: String(version) };
   for (const category of CATEGORIES) {
-    const list = record[category.key];
+    // Versions stored before a category existed (windings came with engine 0.3) read as an empty list of it.
+    const list = record[category.key] ?? (LATER_CATEGORIES.has(category.key) ? [] : undefined);
     if (!Array.isArray(list)) throw new Error(`stored parts library version ${version} has no ${category.key} list`);
     library[category.key] = list.map((part) => partSchemaOf(category.key).parse(part));
   }

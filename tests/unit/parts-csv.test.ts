@@ -144,3 +144,15 @@ describe('parts CSV export', () => {
     expect(out).toContain(String(library.cores[0]!.alH));
   });
 });
+
+describe('libraries stored before windings were costed (issue 17)', () => {
+  it('a stored version without a windings list reads as one with none; any other missing list is still an error', () => {
+    const { windings: _w, ...older } = seedLibraryJson() as Record<string, unknown>;
+    expect(parseStoredLibrary(older, 3).windings).toEqual([]);
+    const { cores: _c, ...broken } = seedLibraryJson() as Record<string, unknown>;
+    expect(() => parseStoredLibrary(broken, 3)).toThrow(/no cores list/);
+  });
+  it('the winding entry exports and imports as CSV like any other part', () => {
+    expect(csv).toContain('windings,demo-winding-shop-a');
+  });
+});

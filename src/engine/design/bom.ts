@@ -14,6 +14,7 @@ export function visitParts(d: Design, model: ResetSchemeModel, visit: PartVisito
   if (low && d.lowSideDrivers > 0) visit('gate-driver', low, d.lowSideDrivers, d.prices.lowSideDriver);
   if (high && d.highSideDrivers > 0) visit('high-side-gate-driver', high, d.highSideDrivers, d.prices.highSideDriver);
   if (d.core) visit('transformer-core', d.core, 1, d.corePrice);
+  if (d.core && ix.winding) visit('transformer-windings', ix.winding, d.windingCount, d.windingPrice);
   if (d.rectSr) {
     visit('forward-sync-rectifier', d.rectSr, d.rectQty, d.rectPrice);
     visit('freewheel-sync-rectifier', d.rectSr, d.rectQty, d.rectPrice);
@@ -37,6 +38,8 @@ export function costAndCount(d: Design, model: ResetSchemeModel): void {
   acc.cost = 0;
   acc.count = 0;
   visitParts(d, model, accumulate);
+  // Windings are counted whether or not the library prices them (without a winding entry a finding says they are not costed).
+  if (d.core && !d.index.winding) acc.count += d.windingCount;
   d.bomCost = Math.round(acc.cost * 1000) / 1000;
   d.partCount = acc.count;
 }

@@ -8,7 +8,7 @@ import { unitPriceAt } from '../parts/index-library';
 import type { CorePart } from '../parts/types';
 import { selectCore } from '../parts/select';
 import type { ResetSchemeModel } from '../schemes/types';
-import { awgForMaxDiameter, copperResistivity, skinDepthM } from '../wire';
+import { awgForMaxDiameter, COPPER_DENSITY_KG_PER_M3, copperResistivity, skinDepthM } from '../wire';
 
 /** Hot copper resistivity (IEC 60028 / IACS at HOT_C), computed once. */
 const RHO_HOT_OHM_M = copperResistivity(HOT_C);
@@ -174,6 +174,23 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   d.skinDepthM = sk.depthM;
   d.strandAwg = sk.awg;
   setCoreLoss(d, model);
+}
+
+/**
+ * Windings and their copper, once the magnetizing current is known: each winding's copper cross-section is its rms
+ * ampere-turns over the design current density (the window sizing's own J), so the copper of all of them is
+ * ρCu·MLT·(ΣN·I)/J (derived; copper density from IEC 60028). One winding costs the library's labour at the volume plus
+ * its share of the copper at the library's price per kilogram.
+ */
+export function designWindings(d: Design, model: ResetSchemeModel): void {
+  const core = d.core;
+  d.windingCount = model.windingCount;
+  if (!core) return;
+  const s = d.spec;
+  const at = d.turnsPrimary * ampereTurnsPerTurn(d, d.dutyAtVinMin, s.ioutA, d.rippleA) + model.extraAmpereTurnsA(d);
+  d.copperMassKg = (COPPER_DENSITY_KG_PER_M3 * core.mltM * at) / CURRENT_DENSITY_A_PER_M2;
+  const w = d.index.winding;
+  d.windingPrice = w ? d.prices.windingLabour + (d.copperMassKg * w.copperPricePerKg) / d.windingCount : 0;
 }
 
 /**

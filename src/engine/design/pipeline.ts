@@ -5,7 +5,7 @@ import type { SchemeId } from '../scheme-ids';
 import { subScores, weightedScore } from '../score';
 import { costAndCount } from './bom';
 import { chooseRectifier, designConversion, designFilter, setRectifierVoltages } from './converter';
-import { designMagnetics, setCoreLoss } from './magnetics';
+import { designMagnetics, designWindings, setCoreLoss } from './magnetics';
 import { efficiencyOf, lossesAt } from './operating-point';
 import { newDesign, resetDesign } from './record';
 import { leakageCoefficientV, leakageShare, leakageVoltSecondsV, switchDutyAt, turnsRatioWithLeakage } from './duty';
@@ -130,6 +130,7 @@ export function designBack(d: Design): Design {
     settleMagnetizing(d, model);
     model.sizeReset(d);
     setCoreLoss(d, model);
+    designWindings(d, model);
     if (model.restressAfterReset) {
       designStress(d, model);
       chooseRectifier(d, model);

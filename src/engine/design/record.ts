@@ -19,6 +19,7 @@ export function newDesign(spec: NormalisedSpec, scheme: SchemeId, index: Library
     rectForwardV: NaN, rectFreewheelV: NaN, rectDiode: null, rectSr: null, rectQty: 1, rectPrice: 0,
     core: null, corePrice: 0, turnsPrimary: 0, deltaBT: NaN, bTransientT: NaN, bAvailableT: NaN, lmH: NaN, llkH: NaN,
     magnetizingSwingA: NaN, magnetizingStartA: NaN, magnetizingPeakA: NaN, fluxLimitedBy: 'loss', windowFill: NaN, skinDepthM: NaN, strandAwg: NaN, coreLossW: 0,
+    windingCount: 0, copperMassKg: 0, windingPrice: 0,
     primaryPeakA: NaN, primaryRmsA: NaN,
     clampV: NaN, resonantPeakV: NaN, resonantCF: NaN, addedCF: 0, clampResOhm: NaN, clampCapF: NaN,
     switchPeakV: NaN, transientV: NaN, spikeV: 0, snubberNeeded: false, switchStressV: NaN, switchRatingV: NaN,
@@ -101,6 +102,9 @@ export function resetDesign(d: Design, spec: NormalisedSpec, scheme: SchemeId, i
   d.skinDepthM = NaN;
   d.strandAwg = NaN;
   d.coreLossW = 0;
+  d.windingCount = 0;
+  d.copperMassKg = 0;
+  d.windingPrice = 0;
   d.primaryPeakA = NaN;
   d.primaryRmsA = NaN;
   d.clampV = NaN;
@@ -205,6 +209,9 @@ export function copyDesign(d: Design, from: Design): Design {
   d.skinDepthM = from.skinDepthM;
   d.strandAwg = from.strandAwg;
   d.coreLossW = from.coreLossW;
+  d.windingCount = from.windingCount;
+  d.copperMassKg = from.copperMassKg;
+  d.windingPrice = from.windingPrice;
   d.primaryPeakA = from.primaryPeakA;
   d.primaryRmsA = from.primaryRmsA;
   d.clampV = from.clampV;

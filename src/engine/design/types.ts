@@ -97,6 +97,12 @@ export interface Design {
   skinDepthM: number;
   strandAwg: number;
   coreLossW: number;
+  /** Transformer windings (primary, secondary and any reset winding). */
+  windingCount: number;
+  /** Copper of all windings at the design current density (kg). */
+  copperMassKg: number;
+  /** Price of one winding: the library's labour at the volume plus its share of the copper (0 without a winding entry). */
+  windingPrice: number;
   // currents at vinMin, full load
   primaryPeakA: number;
   primaryRmsA: number;

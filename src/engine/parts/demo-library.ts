@@ -1,6 +1,6 @@
 import type {
   CapacitorPart, CorePart, CoreShapeFamily, GateDriverPart, InductorPart, MosfetPart, PartsLibrary,
-  PriceTier, RectifierPart, ResistorPart,
+  PriceTier, RectifierPart, ResistorPart, WindingPart,
 } from './types';
 
 /**
@@ -133,6 +133,11 @@ const inductors: InductorPart[] = ([
   id: `demo-ind-${Math.round(energyJ * 1e6)}uj`, status: 'preferred', tiers: tiers(price), energyJ, dcrOhmPerH,
 }));
 
+/** Invented winding-shop price: labour per winding from 0.12 at 10 k pieces, copper wire at 11 per kg. */
+const windings: WindingPart[] = [
+  { id: 'demo-winding-shop-a', description: 'Winding of one transformer winding, labour and copper (invented)', status: 'preferred', tiers: tiers(0.12), copperPricePerKg: 11 },
+];
+
 /** The invented demo library the engine uses when no other library is given. */
 export const demoPartsLibrary: PartsLibrary = {
   name: 'Resetwise demo parts (invented)',
@@ -140,5 +145,5 @@ export const demoPartsLibrary: PartsLibrary = {
   currency: 'EUR',
   demo: true,
   note: 'Demo data: every part, value and price is invented for illustration. No manufacturer or real part number.',
-  mosfets, srMosfets, rectifiers, clampDiodes, gateDrivers, cores: coreList, capacitors, resistors, inductors,
+  mosfets, srMosfets, rectifiers, clampDiodes, gateDrivers, cores: coreList, capacitors, resistors, inductors, windings,
 };

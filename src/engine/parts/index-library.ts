@@ -1,6 +1,6 @@
 import type {
   CapacitorPart, CorePart, GateDriverPart, InductorPart, MosfetPart, PartsLibrary, PriceTier,
-  RectifierPart, ResistorPart,
+  RectifierPart, ResistorPart, WindingPart,
 } from './types';
 
 /**
@@ -19,6 +19,8 @@ export interface LibraryIndex {
   capacitors: CapacitorPart[];
   resistors: ResistorPart[];
   inductors: InductorPart[];
+  /** The winding entry used for every transformer winding: the first usable one (null when the library has none). */
+  winding: WindingPart | null;
   drivers: Record<GateDriverPart['kind'], GateDriverPart | undefined>;
   byId: Map<string, unknown>;
   /** Unit prices resolved per annual volume (see `pricesAt`), most recent first. */
@@ -41,6 +43,8 @@ export interface PriceTable {
   capacitors: Float64Array;
   resistors: Float64Array;
   inductors: Float64Array;
+  /** Labour price of one winding at this volume (0 without a winding entry). */
+  windingLabour: number;
   lowSideDriver: number;
   highSideDriver: number;
 }
@@ -66,7 +70,7 @@ export function indexLibrary(library: PartsLibrary): LibraryIndex {
   const coresByAp = usable(library.cores).sort((a, b) => a.aeM2 * a.waM2 - b.aeM2 * b.waM2);
   const byId = new Map<string, unknown>();
   for (const list of [library.mosfets, library.srMosfets, library.rectifiers, library.clampDiodes,
-    library.gateDrivers, library.cores, library.capacitors, library.resistors, library.inductors]) {
+    library.gateDrivers, library.cores, library.capacitors, library.resistors, library.inductors, library.windings ?? []]) {
     for (const p of list) byId.set(p.id, p);
   }
   const index: LibraryIndex = {
@@ -81,6 +85,7 @@ export function indexLibrary(library: PartsLibrary): LibraryIndex {
     capacitors: usable(library.capacitors).sort((a, b) => a.voltageV - b.voltageV),
     resistors: usable(library.resistors).sort((a, b) => a.powerW - b.powerW),
     inductors: usable(library.inductors).sort((a, b) => a.energyJ - b.energyJ),
+    winding: usable(library.windings ?? [])[0] ?? null,
     drivers: {
       'low-side': cheapestDriver(library.gateDrivers, 'low-side'),
       'bootstrap-high-side': cheapestDriver(library.gateDrivers, 'bootstrap-high-side'),
@@ -135,6 +140,7 @@ export function pricesAt(index: LibraryIndex, annualVolume: number): PriceTable 
       capacitors: pricesOf(index.capacitors, annualVolume),
       resistors: pricesOf(index.resistors, annualVolume),
       inductors: pricesOf(index.inductors, annualVolume),
+      windingLabour: index.winding ? unitPriceAt(index.winding.tiers, annualVolume) : 0,
       lowSideDriver: index.drivers['low-side'] ? unitPriceAt(index.drivers['low-side'].tiers, annualVolume) : 0,
       highSideDriver: index.drivers['bootstrap-high-side'] ? unitPriceAt(index.drivers['bootstrap-high-side'].tiers, annualVolume) : 0,
     };

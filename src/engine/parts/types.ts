@@ -98,6 +98,14 @@ export interface InductorPart extends PartBase {
   dcrOhmPerH: number;
 }
 
+/**
+ * Winding of a transformer by the team's winding shop: `tiers` price the labour of one winding (layers, insulation,
+ * terminations) at volume; the copper is priced by its mass at `copperPricePerKg` (library currency per kilogram).
+ */
+export interface WindingPart extends PartBase {
+  copperPricePerKg: number;
+}
+
 /** A whole parts library. */
 export interface PartsLibrary {
   name: string;
@@ -116,6 +124,8 @@ export interface PartsLibrary {
   capacitors: CapacitorPart[];
   resistors: ResistorPart[];
   inductors: InductorPart[];
+  /** Winding labour and copper; libraries from before windings were costed have none (the engine then says so). */
+  windings: WindingPart[];
 }
 
 /** Library category names. */

@@ -109,6 +109,8 @@ export const activeClamp: ResetSchemeModel = {
   clampAllowance: CLAMP_RIPPLE_RATIO / 2,
   diodeRole: 'clamp-diode',
   capacitorRole: 'clamp-capacitor',
+  windingCount: 2,
+  extraAmpereTurnsA: () => 0,
   restressAfterReset: false,
   formulas: {
     dutyLimit: 'Dlim minimises S = Vds,max·Irms: Vmax/(Vmax + Vmin), or Vmax/(3·Vmin) where that is lower; ≤ maxDuty − margin',

@@ -40,6 +40,8 @@ export const rcdClamp: ResetSchemeModel = {
   clampAllowance: 0,
   diodeRole: 'clamp-diode',
   capacitorRole: 'clamp-capacitor',
+  windingCount: 2,
+  extraAmpereTurnsA: () => 0,
   restressAfterReset: false,
   formulas: {
     dutyLimit: 'Dlim = min(maxDuty, 0.5); reset limit Vcl/(Vin,min + Vcl)',

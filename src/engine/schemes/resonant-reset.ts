@@ -31,6 +31,8 @@ export const resonantReset: ResetSchemeModel = {
   clampAllowance: 0,
   diodeRole: 'clamp-diode',
   capacitorRole: 'resonant-capacitor',
+  windingCount: 2,
+  extraAmpereTurnsA: () => 0,
   restressAfterReset: true,
   formulas: {
     dutyLimit: 'Dlim = (1 − π·fs·√(Lm·Cr)) − margin, Cr chosen for a reset limit of 0.5',

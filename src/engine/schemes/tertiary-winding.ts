@@ -17,6 +17,10 @@ export const tertiaryWinding: ResetSchemeModel = {
   clampAllowance: 0,
   diodeRole: 'reset-diode',
   capacitorRole: 'clamp-capacitor',
+  windingCount: 3,
+  // The reset winding (Nr = r·Np) carries Lm's current reflected, Im,pk·Np/Nr falling to zero over the reset time t_r:
+  // Nr·I_rms = Np·Im,pk·√(t_r·fs/3), at Vin,min where the reset is longest (derived; FORMULAS §1.1 reset-winding rms).
+  extraAmpereTurnsA: (d) => d.turnsPrimary * d.magnetizingPeakA * Math.sqrt(Math.min(1, (d.kV * d.resetTurnsRatio) / d.spec.vinMinV) / 3),
   restressAfterReset: false,
   formulas: {
     dutyLimit: 'Dlim = 1/(1 + Nr/Np) − margin',

@@ -17,6 +17,8 @@ export const twoSwitch: ResetSchemeModel = {
   clampAllowance: RAIL_CLAMP_OVERSHOOT,
   diodeRole: 'clamp-diode',
   capacitorRole: 'clamp-capacitor',
+  windingCount: 2,
+  extraAmpereTurnsA: () => 0,
   restressAfterReset: false,
   formulas: {
     dutyLimit: 'Dlim = 0.5 − margin',

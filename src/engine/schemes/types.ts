@@ -31,6 +31,10 @@ export interface ResetSchemeModel {
   /** BOM role names of the reset network's diode and capacitor. */
   diodeRole: string;
   capacitorRole: string;
+  /** Transformer windings: primary and secondary, plus a reset winding where the scheme has one. */
+  windingCount: number;
+  /** Rms ampere-turns of the windings beyond primary and secondary (the tertiary's reset winding), for their copper (A). */
+  extraAmpereTurnsA(d: Design): number;
   /** Stress must be recomputed after sizeReset (the reset network changes the peak). */
   restressAfterReset: boolean;
   /** Reset-limited duty before the margin, for the spec's parameters. */

@@ -94,6 +94,10 @@ export const CATEGORIES: readonly CategoryInfo[] = [
     key: 'inductors', label: 'Output-inductor cores', singular: 'inductor core',
     fields: [n('energyJ', 'Stored energy ½LI²', 'J'), n('dcrOhmPerH', 'DCR per henry', 'Ω/H')],
   },
+  {
+    key: 'windings', label: 'Transformer windings (labour and copper)', singular: 'winding entry',
+    fields: [n('copperPricePerKg', 'Copper wire price per kg', '', { hint: 'library currency per kilogram; the tiers price the labour of one winding' })],
+  },
 ];
 
 export const CATEGORY_KEYS = CATEGORIES.map((cat) => cat.key);

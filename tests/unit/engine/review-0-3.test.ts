@@ -11,6 +11,7 @@ import { lossesAt } from '../../../src/engine/design/operating-point';
 import { rippleAtA, switchDutyAt as switchDutyAtOf } from '../../../src/engine/design/duty';
 import { waveformsOf } from '../../../src/engine/waveforms';
 import { leakageInductanceH, leakageThicknessM, windowShapeM } from '../../../src/engine/magnetics/leakage';
+import { COPPER_DENSITY_KG_PER_M3 } from '../../../src/engine/wire';
 import { evaluateNormalised } from '../../../src/engine/evaluate';
 import { indexLibrary } from '../../../src/engine/parts/index-library';
 import { demoPartsLibrary } from '../../../src/engine/parts/demo-library';
@@ -370,5 +371,40 @@ describe('the drain ring after a unipolar reset leaves −I0 in Lm (derived: ene
     }
     // The peak the core sees is the swing less the smaller ring of the two ends.
     expect(d.magnetizingPeakA).toBeCloseTo(d.magnetizingSwingA - Math.min(ringCurrentA(d, model, d.spec.vinMinV), ringCurrentA(d, model, d.spec.vinMaxV)), 12);
+  });
+});
+
+describe('8. windings counted, their copper estimated and both costed from the parts library (derived; IEC 60028 copper density)', () => {
+  test('copper density from IEC 60028: mass resistivity 0.15328 Ω·g/m² over 1.7241e-8 Ω·m = 8.89 g/cm³', () => {
+    expect(COPPER_DENSITY_KG_PER_M3).toBeCloseTo(8890, 0);
+  });
+  test.each(SCHEME_IDS.flatMap((id) => Object.entries(SPECS).map(([n, raw]) => [id, n, raw] as const)))('%s on %s', (id, _n, raw) => {
+    const r = evaluateNormalised(spec(raw)).results.find((x) => x.scheme === id)!;
+    const d = designScheme(spec(raw), id, index);
+    const count = id === 'tertiary-winding' ? 3 : 2;
+    expect(r.details.windingCount).toBe(count);
+    // Copper: ρ·MLT·(ΣN·Irms)/J, primary and secondary from the window's ampere-turns, plus the reset winding's.
+    const iL = Math.sqrt(d.spec.ioutA ** 2 + d.rippleA ** 2 / 12);
+    const atMain = d.turnsPrimary * 2 * d.turnsRatio * Math.sqrt(d.dutyAtVinMin) * iL;
+    const atReset = id === 'tertiary-winding' ? d.turnsPrimary * d.magnetizingPeakA * Math.sqrt((d.kV * d.resetTurnsRatio) / d.spec.vinMinV / 3) : 0;
+    expect(rel(r.details.copperMassKg, (8890.24 * d.core!.mltM * (atMain + atReset)) / 4.5e6)).toBeLessThan(1e-6);
+    const line = r.parts.find((p) => p.role === 'transformer-windings')!;
+    expect(line.qty).toBe(count);
+    const shop = demoPartsLibrary.windings[0]!;
+    const labour = shop.tiers.filter((t) => t.minQty <= d.spec.annualVolume).at(-1)!.unitPrice;
+    expect(line.unitPrice).toBeCloseTo(labour + (r.details.copperMassKg * shop.copperPricePerKg) / count, 12);
+    expect(r.partCount).toBe(r.parts.reduce((n, p) => n + p.qty, 0));
+  });
+  test('the tertiary pays for its third winding', () => {
+    const r = evaluateNormalised(spec(TELECOM)).results;
+    const windings = (id: string): number => { const l = r.find((x) => x.scheme === id)!.parts.find((p) => p.role === 'transformer-windings')!; return l.qty * l.unitPrice; };
+    expect(windings('tertiary-winding')).toBeGreaterThan(windings('two-switch') * 1.3);
+  });
+  test('a library without a winding entry counts the windings, leaves them uncosted and says so', () => {
+    const bare = { ...demoPartsLibrary, windings: [] };
+    const r = evaluateNormalised(spec(TELECOM), bare).results.find((x) => x.scheme === 'tertiary-winding')!;
+    expect(r.parts.some((p) => p.role === 'transformer-windings')).toBe(false);
+    expect(r.partCount).toBe(r.parts.reduce((n, p) => n + p.qty, 0) + 3);
+    expect(r.findings.map((f) => f.code)).toContain('windings-not-costed');
   });
 });

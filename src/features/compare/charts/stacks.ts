@@ -27,7 +27,7 @@ export const COST_GROUPS: readonly { key: string; label: string }[] = [
   { key: 'switches', label: 'Power switches' },
   { key: 'drivers', label: 'Gate drivers' },
   { key: 'reset', label: 'Reset / clamp / snubber' },
-  { key: 'core', label: 'Transformer core' },
+  { key: 'core', label: 'Transformer (core and windings)' },
   { key: 'rectifiers', label: 'Output rectifiers' },
   { key: 'filter', label: 'Output filter' },
   { key: 'other', label: 'Other' },
@@ -37,7 +37,7 @@ export const COST_GROUPS: readonly { key: string; label: string }[] = [
 export function costGroupOf(role: string): string {
   if (role === 'main-switch' || role === 'clamp-switch') return 'switches';
   if (role.endsWith('driver')) return 'drivers';
-  if (role === 'transformer-core') return 'core';
+  if (role.startsWith('transformer-')) return 'core';
   if (role.endsWith('rectifier')) return 'rectifiers';
   if (role.startsWith('output-')) return 'filter';
   if (/^(reset|clamp|snubber|resonant)-/.test(role)) return 'reset';
