@@ -68,7 +68,7 @@ export function resultOf(d: Design): SchemeResult {
       magnetizingInductanceH: d.lmH, leakageInductanceH: d.llkH, transientFluxSwingT: d.bTransientT,
       availableFluxSwingT: d.bAvailableT, windowFill: d.windowFill, skinDepthM: d.skinDepthM, strandAwg: d.strandAwg,
       windingCount: d.windingCount, copperMassKg: d.copperMassKg,
-      resonantPeakV: nullIfNaN(d.resonantPeakV), resonantCapacitanceF: nullIfNaN(d.resonantCF),
+      resonantPeakV: Number.isFinite(d.resonantPeakV) ? Math.max(model.resetVoltageV(d, d.spec.vinMinV), model.resetVoltageV(d, d.spec.vinMaxV)) : null, resonantCapacitanceF: nullIfNaN(d.resonantCF),
       clampResistorOhm: nullIfNaN(d.clampResOhm), clampCapacitanceF: nullIfNaN(d.clampCapF),
       mainSwitchId: d.mainSwitch?.id ?? null, mainSwitchParallel: d.mainQty, rectifierId: (d.rectSr ?? d.rectDiode)?.id ?? null,
     },

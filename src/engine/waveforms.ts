@@ -57,15 +57,24 @@ function offShape(d: Design, vinV: number, tOffS: number, imEnd: number): OffSha
       return { knots: [0, tOffS], v: () => vOff, im: (x) => imEnd - (swing * x) / tOffS, vLmOff: (kV * tS) / tOffS };
     }
     case 'resonant-reset': {
-      const half = Math.PI * Math.sqrt(d.lmH * d.resonantCF);
-      const th = Math.min(half, tOffS);
+      // The tank starts where the leakage left it (Cr above Vin, current I2 = imEnd) and swings with peak current
+      // I1 = ΔIm − I2 (schemes/resonant-reset.ts): v = Vin + Z0·I1·sin(ωx + φ0), im = I1·cos(ωx + φ0), cos φ0 = I2/I1,
+      // until the drain is back at Vin and the current at −I1.
+      const omega = 1 / Math.sqrt(d.lmH * d.resonantCF);
+      const i1 = swing - imEnd;
+      const vPk = model.resetVoltageV(d, vinV);
+      const phi0 = Math.acos(Math.max(-1, Math.min(1, imEnd / i1)));
+      const th = Math.min((Math.PI - phi0) / omega, tOffS);
       const knots = [0];
       arcKnots(0, th, knots);
+      // The drawn peak is the real one: a knot where the sine tops out.
+      const xPeak = (Math.PI / 2 - phi0) / omega;
+      if (xPeak > 0 && xPeak < th) knots.splice(knots.findIndex((x) => x > xPeak), 0, xPeak);
       if (th < tOffS) knots.push(tOffS);
       return {
         knots,
-        v: (x) => (x >= th ? vinV : vinV + d.resonantPeakV * Math.sin((Math.PI * x) / half)),
-        im: (x) => (x >= th ? -imEnd : imEnd * Math.cos((Math.PI * x) / half)),
+        v: (x) => (x >= th ? vinV : vinV + vPk * Math.sin(omega * x + phi0)),
+        im: (x) => (x >= th ? -i1 : i1 * Math.cos(omega * x + phi0)),
       };
     }
     default: {

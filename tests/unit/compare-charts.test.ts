@@ -39,9 +39,16 @@ describe.each(comparisons)('%s', (_name, c) => {
       expect(markers.data.length).toBeLessThanOrEqual(6);
       for (const p of markers.data) expect(line.data).toContainEqual(p);
       const rating = s.references.find((d) => d.scheme === r.scheme);
+      if (r.switchRatingV === null) {
+        // No switch in the library takes the stress (the resonant reset on the 380 V bus, whose leakage energy lifts
+        // the resonance past 1.5 kV): no rating line, and the legend says so.
+        expect(rating).toBeUndefined();
+        expect(s.legend[k]!.detail).toBe('no rating chosen');
+        continue;
+      }
       expect(rating?.data.map((p) => p.y)).toEqual([r.switchRatingV, r.switchRatingV]);
       expect(rating?.borderColor).toBe(style.color);
-      expect(s.legend[k]!.detail).toBe(`rating ${formatVolts(r.switchRatingV!)}`);
+      expect(s.legend[k]!.detail).toBe(`rating ${formatVolts(r.switchRatingV)}`);
     }
     // Every curve and rating fits under the suggested top of the axis.
     const top = Math.max(...[...s.lines, ...s.references].flatMap((d) => d.data.map((p) => p.y)));

@@ -33,7 +33,7 @@ describe('SPICE netlist text', () => {
   });
 
   test.each([
-    ['tertiary-winding', /^LR 0 rk .*\nK2 LP LR 1\nK3 LS LR 1\nDR rk in DIDEAL$/m],
+    ['tertiary-winding', /^LLKR 0 rl .*\nK4 LLK LLKR 0\.99999\nLR rl rk .*\nK2 LP LR 1\nK3 LS LR 1\nDR rk in DIDEAL$/m],
     ['rcd-clamp', /^DCL d cl DIDEAL\nCCL cl in .* IC=.*\nRCL cl in /m],
     ['active-clamp', /^S2 d cc g2 0 SWI$/m],
     ['two-switch', /^DA d in DIDEAL\nDB 0 dt DIDEAL$/m],

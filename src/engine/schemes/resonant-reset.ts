@@ -1,5 +1,7 @@
 import { RESONANT_RESET_DUTY, WINDING_CAPACITANCE_F } from '../assumptions';
 import { E12, snapDownIn } from '../eseries';
+import { rippleAtA } from '../design/duty';
+import type { Design } from '../design/types';
 import { chooseClampCap, withMargin } from './common';
 import type { ResetSchemeModel } from './types';
 
@@ -20,13 +22,46 @@ export function resonantPeakV(kV: number, fswHz: number, lmH: number, crF: numbe
   return kV / (2 * fswHz * Math.sqrt(lmH * crF));
 }
 
+/**
+ * Leakage energy that joins the resonance at turn-off (derived). Nothing clamps the leakage: when the drain passes Vin
+ * the commutating secondary holds Lm at 0 V, and the leakage hands its current over to Cr, from Ip = n·IL,max + I2 down
+ * to the magnetizing current I2, leaving E = ½·Llk·(Ip² − I2²) in Cr. When the secondary lets go, that charge is where
+ * the Lm–Cr resonance starts from (the fast Llk–Cr mode gets only Llk/Lm of it), so the tank holds ½·Lm·I2² + E and
+ * ends the half-cycle at −I1 with ½·Lm·I1² = ½·Lm·I2² + E. With I1 + I2 = ΔIm (the on-time's rise) the magnetizing
+ * current swings about an offset −(I1 − I2)/2 = −E/(Lm·ΔIm), and E itself, with a = n·IL,max and I2 = ΔIm/2 + offset,
+ * is E = ½·Llk·a·(a + ΔIm)/(1 + Llk·a/(Lm·ΔIm)). The energy goes back to the input through the negative current in the
+ * next on time; the resonant peak rises with I1: Vres = Z0·I1.
+ */
+export function resonantLeakageEnergyJ(llkH: number, lmH: number, reflectedA: number, swingA: number): number {
+  if (!(llkH > 0) || !(lmH > 0) || !(swingA > 0)) return 0;
+  return (0.5 * llkH * reflectedA * (reflectedA + swingA)) / (1 + (llkH * reflectedA) / (lmH * swingA));
+}
+
+/** Dc offset of the resonant reset's magnetizing current at vinV, −E/(Lm·ΔIm) (see resonantLeakageEnergyJ). */
+function offsetAt(d: Design, vinV: number): number {
+  const swing = d.magnetizingSwingA;
+  if (!(d.llkH > 0) || !(d.lmH > 0) || !(swing > 0) || !(d.outputInductanceH > 0)) return 0;
+  const e = resonantLeakageEnergyJ(d.llkH, d.lmH, d.turnsRatio * (d.spec.ioutA + rippleAtA(d, vinV) / 2), swing);
+  return -e / (d.lmH * swing);
+}
+
+/**
+ * Resonant peak above Vin at vinV: Z0·I1 with I1 = ΔIm/2 + |offset| (the leakage's share; derived above); d.resonantPeakV
+ * holds the symmetric Z0·ΔIm/2.
+ */
+function peakAt(d: Design, vinV: number): number {
+  const half = d.magnetizingSwingA / 2;
+  return half > 0 ? d.resonantPeakV * (1 - offsetAt(d, vinV) / half) : d.resonantPeakV;
+}
+
 /** Single-switch forward reset by the Lm–Cr resonance (Cr = Coss + winding C + an added capacitor). */
 export const resonantReset: ResetSchemeModel = {
   id: 'resonant-reset',
   label: 'Resonant reset',
   switchCount: 1,
   bipolarFlux: true,
-  leakageClamped: false,
+  // The leakage energy joins the resonance and returns to the input (resonantLeakageEnergyJ): no spike of its own.
+  leakageClamped: true,
   seriesSwitches: 1,
   clampAllowance: 0,
   diodeRole: 'clamp-diode',
@@ -36,11 +71,11 @@ export const resonantReset: ResetSchemeModel = {
   restressAfterReset: true,
   formulas: {
     dutyLimit: 'Dlim = (1 − π·fs·√(Lm·Cr)) − margin, Cr chosen for a reset limit of 0.5',
-    offState: 'Vds = Vin + Vin·D/(2·fs·√(Lm·Cr)) = Vin + (π/2)·K/(1 − Dr)',
-    transient: 'Vds = Vin,max·(1 + Dlim/(2·fs·√(Lm·Cr))) when D reaches its limit at high line',
+    offState: 'Vds = Vin + Z0·I1, Z0 = √(Lm/Cr), I1 = ΔIm/2 + E/(Lm·ΔIm), E = ½·Llk·a·(a + ΔIm)/(1 + Llk·a/(Lm·ΔIm)), a = n·IL,max (the leakage energy joins the resonance)',
+    transient: 'Vds = Vin,max + Vres·Vin,max·Dlim/K when D reaches its limit at high line',
     forwardReverse: 'VR(D1) = n·Vres,pk',
-    resetLoss: 'P = ½·Cadded·Vin²·fs + ½·Llk·Ip²·fs',
-    source: 'derived; Murakami & Yamasaki, PESC 1988 [M]',
+    resetLoss: 'P = ½·Cadded·Vin²·fs (the leakage energy returns to the input through the magnetizing current)',
+    source: 'derived (energy and volt-second balance of the Lm–Cr resonance); Murakami & Yamasaki, PESC 1988 [M]',
   },
   resetDutyLimit: () => RESONANT_RESET_DUTY,
   designDutyLimit: (spec) => withMargin(RESONANT_RESET_DUTY, spec.maxDuty),
@@ -48,9 +83,9 @@ export const resonantReset: ResetSchemeModel = {
   prepare(d) {
     d.resonantPeakV = (Math.PI / 2) * d.kV / (1 - RESONANT_RESET_DUTY);
   },
-  resetVoltageV: (d) => d.resonantPeakV,
-  offStateV: (d, vinV) => vinV + d.resonantPeakV,
-  transientV: (d) => d.spec.vinMaxV + d.resonantPeakV * (d.spec.vinMaxV * d.transientDuty) / d.kV,
+  resetVoltageV: peakAt,
+  offStateV: (d, vinV) => vinV + peakAt(d, vinV),
+  transientV: (d) => d.spec.vinMaxV + peakAt(d, d.spec.vinMaxV) * (d.spec.vinMaxV * d.transientDuty) / d.kV,
   turnOnV: (_d, vinV) => vinV,
   sizeReset(d) {
     const s = d.spec;
@@ -62,16 +97,15 @@ export const resonantReset: ResetSchemeModel = {
     d.resetDutyLimit = resonantDutyLimit(s.fswHz, d.lmH, d.resonantCF);
     if (d.resetDutyLimit < d.dutyAtVinMin) d.fails.push('resonant-reset-incomplete');
     d.resonantPeakV = resonantPeakV(d.kV, s.fswHz, d.lmH, d.resonantCF);
-    if (d.addedCF > 0) chooseClampCap(d, d.addedCF, s.vinMaxV + d.resonantPeakV);
+    if (d.addedCF > 0) chooseClampCap(d, d.addedCF, s.vinMaxV + peakAt(d, s.vinMaxV));
     d.lowSideDrivers = 1;
   },
-  // Nothing catches the leakage at turn-off: its energy rings into Cr (the spike the snubber limits).
-  spikeLeakageH: (d) => d.llkH,
-  magnetizingOffsetA: () => 0,
+  spikeLeakageH: () => 0,
+  magnetizingOffsetA: offsetAt,
   // Cr is chosen so that half a resonant period fills 1 − Dr of the period; the half-cosine fall is taken as linear over
   // that time (its iGSE is about 7 % higher at α = 1.4; see src/engine/README.md).
   fluxFallShare: () => 1 - RESONANT_RESET_DUTY,
-  resetLossW(d, vinV, _duty, primaryPeakA) {
-    return 0.5 * d.addedCF * vinV * vinV * d.spec.fswHz + 0.5 * d.llkH * primaryPeakA * primaryPeakA * d.spec.fswHz;
+  resetLossW(d, vinV) {
+    return 0.5 * d.addedCF * vinV * vinV * d.spec.fswHz;
   },
 };

@@ -26,6 +26,24 @@ export function emissionFor(vfV: number): number {
   return Math.max(vfV, 0.01) / (VT_27C * Math.log(1 / IS_PER_AMP));
 }
 
+/** Dead time of the active clamp's complementary drive at each edge, share of the period (0.5 %: 33 ns at 150 kHz). */
+const CLAMP_DEAD_TIME_SHARE = 0.005;
+/** Share of the rectifier's full-load drop taken by its series resistance RS (the rest by the junction). */
+const RECTIFIER_RS_SHARE = 0.1;
+/** Junction capacitance of the rectifier and clamp diode models: small, there to give every node a path (F). */
+const RECTIFIER_CJO_F = 10e-12;
+const CLAMP_DIODE_CJO_F = 1e-12;
+
+/**
+ * Rectifier model: the full-load drop `vfV` at `iA`, RECTIFIER_RS_SHARE of it in RS, the rest in the junction
+ * (N from `emissionFor`), and a small junction capacitance. A diode with series resistance and capacitance keeps the
+ * simulator's time step from collapsing when the diode turns off with current still in a leakage inductance.
+ */
+export function rectifierModel(vfV: number, iA: number): string {
+  const rs = (RECTIFIER_RS_SHARE * vfV) / iA;
+  return `.model DRECT D(IS=${spiceNumber(IS_PER_AMP * iA)} N=${spiceNumber(emissionFor((1 - RECTIFIER_RS_SHARE) * vfV))} RS=${spiceNumber(rs)} CJO=${spiceNumber(RECTIFIER_CJO_F)})`;
+}
+
 /** Timing of the transient run: settle the output filter (5 time constants) plus a measuring window. */
 export function runTiming(p: NetlistPoint): { periodS: number; stopS: number; fromS: number; maxStepS: number } {
   const periodS = 1 / p.fswHz;
@@ -38,8 +56,7 @@ export function runTiming(p: NetlistPoint): { periodS: number; stopS: number; fr
 
 const leakageNote = {
   none: 'no leakage: the output is higher by what the leakage would take',
-  primary: 'leakage as a series inductor in the clamp loop, 100 pF at the drain',
-  secondary: 'leakage referred to the secondary',
+  primary: 'leakage as a series inductor in the primary loop',
 } as const;
 
 function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string): string[] {
@@ -52,9 +69,14 @@ function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string):
   switch (p.scheme) {
     case 'tertiary-winding': {
       const r = p.resetTurnsRatio ?? 1;
+      // Bifilar with the primary, the reset winding links the primary's leakage flux too: its own leakage r²·Llk, coupled
+      // to the primary's, takes the leakage current over at turn-off and returns that energy to the input with the
+      // magnetizing energy (the engine's small primary–reset share is not drawn). Their coupling is a hair below 1: with
+      // three perfectly coupled pairs ngspice's matrix turns singular whenever DR opens; the 0.002 % left uncoupled rings
+      // well under 1 % above the reset voltage.
       return [
-        `* Tertiary (reset) winding Nr/Np = ${n(r)}, dot at ground, returning the magnetizing energy to the input through DR`,
-        `LR 0 rk ${n(p.lmH * r * r)}`,
+        `* Tertiary (reset) winding Nr/Np = ${n(r)}, dot at ground, returning the magnetizing and leakage energy to the input through DR`,
+        ...(p.llkH > 0 ? [`LLKR 0 rl ${n(p.llkH * r * r)}`, 'K4 LLK LLKR 0.99999', `LR rl rk ${n(p.lmH * r * r)}`] : [`LR 0 rk ${n(p.lmH * r * r)}`]),
         'K2 LP LR 1', 'K3 LS LR 1',
         'DR rk in DIDEAL',
       ];
@@ -85,11 +107,28 @@ function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string):
     case 'two-switch':
       return ['* Two-switch clamp diodes return the magnetizing energy to the input bus', 'DA d in DIDEAL', 'DB 0 dt DIDEAL'];
     case 'resonant-reset':
+      // The leakage hands its energy to Cr at turn-off and the Lm–Cr resonance starts from there (the engine's model).
       return [
         '* Resonant reset: total drain-node capacitance (switch, winding and added capacitor) resonates with Lm',
         `CR d 0 ${n(p.resonantCapacitanceF ?? 1e-9)} IC=${n(p.vinV)}`,
       ];
   }
+}
+
+/**
+ * Capacitance at the switch node(s): each switch's Co(er) (two in the two-switch forward) and the winding capacitance,
+ * as the engine lumps them (design/stress.ts). The resonant reset's Cr already holds them.
+ */
+function nodeCapacitance(p: NetlistPoint, n: (x: number) => string, windingTop: string): string[] {
+  if (p.scheme === 'resonant-reset') return [];
+  if (p.scheme === 'two-switch') {
+    return [
+      '* Node capacitance: each switch\'s Co(er), and the winding capacitance across the primary',
+      `CS1 in dt ${n(Math.max(p.switchCapacitanceF, 1e-12))}`, `CS2 d 0 ${n(Math.max(p.switchCapacitanceF, 1e-12))}`,
+      `CW ${windingTop} d ${n(p.windingCapacitanceF)}`,
+    ];
+  }
+  return ['* Drain-node capacitance: the switch\'s Co(er) and the winding capacitance', `CDN d 0 ${n(p.switchCapacitanceF + p.windingCapacitanceF)}`];
 }
 
 /**
@@ -104,16 +143,17 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
   const tr = t.periodS / 1000;
   const tOn = p.duty * t.periodS;
   const twoSwitch = p.scheme === 'two-switch';
-  // Leakage (the engine's Llk = leakageRatio·Lm), which takes volt-seconds from every on time. Where the reset network
-  // clamps the leakage energy (RCD, active clamp, two-switch) it sits in series with the primary inside the clamp loop.
-  // The tertiary winding, perfectly coupled here, returns leakage energy referred to the secondary (n²·Llk before D1) to
-  // the input, so the volt-seconds are simulated and the turn-off spike, which the engine books separately with its
-  // snubber, is not. In the resonant reset nothing would catch that energy, so the leakage is left out there.
-  const leakage = !(p.llkH > 0) || p.scheme === 'resonant-reset' ? 'none' : p.scheme === 'tertiary-winding' ? 'secondary' : 'primary';
+  // Leakage (the engine's Llk, all of it on the primary side as the engine takes it), which takes volt-seconds from every
+  // on time. Where the reset network clamps the leakage energy (RCD, active clamp, two-switch) it sits in series with the
+  // primary inside the clamp loop; in the resonant reset it rings with Cr, damped; the tertiary's bifilar reset winding
+  // shares it and returns its energy (resetNetwork).
+  const leakage = !(p.llkH > 0) ? 'none' : 'primary';
   const top = leakage === 'primary' ? 'pa' : twoSwitch ? 'dt' : 'in';
-  const secTop = leakage === 'secondary' ? 'sx' : 'sa';
-  const bipolar = p.scheme === 'active-clamp' || p.scheme === 'resonant-reset';
-  const gate2 = `VG2 g2 0 PULSE(0 1 ${n(tOn + tr)} ${n(tr)} ${n(tr)} ${n(t.periodS - tOn - 3 * tr)} ${n(t.periodS)})`;
+  // The clamp switch is driven in the off time with a dead time at each edge, as a complementary drive has: the drain
+  // swings through its transitions on the body diodes instead of both switches changing at one instant, which also keeps
+  // the simulator from stepping through a singular moment.
+  const dead = t.periodS * CLAMP_DEAD_TIME_SHARE;
+  const gate2 = `VG2 g2 0 PULSE(0 1 ${n(tOn + dead)} ${n(tr)} ${n(tr)} ${n(t.periodS - tOn - 2 * dead - tr)} ${n(t.periodS)})`;
   const rWinding = p.windingDropV / p.ioutA;
   // Start at the beginning of an on time, near the steady state: inductor at its valley, D1 carrying it, and the
   // magnetizing current at its start value (flux linkage consistent across the coupled windings, so no start-up kick).
@@ -127,31 +167,25 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     `* Transformer: n = Ns/Np = ${n(p.turnsRatio)}, Lm = ${n(p.lmH)} H (primary); output L = ${n(p.outputInductanceH)} H, C = ${n(p.outputCapacitanceF)} F`,
     `* Engine ${ctx.engineVersion} at this input: switch peak ${n(p.expected.switchPeakV)} V, output ${n(p.expected.voutV)} V, inductor ripple ${n(p.expected.inductorRippleA)} A p-p`,
     `* Parts library: ${ctx.libraryName}`,
-    `* Idealised models: ideal switches, unity-coupled windings (${leakageNote[leakage]}, no winding capacitance), diodes with a fixed`,
-    '* drop at full load and no recovery, lossless L and C. Early trade-off only; verify the final design on the bench.',
+    `* Idealised models: ideal switches with their Co(er), unity-coupled windings (${leakageNote[leakage]}), diodes with the`,
+    '* full-load drop, a small series resistance and junction capacitance and no recovery, lossless L and C.',
+    '* Early trade-off only; verify the final design on the bench.',
     ...safety,
     '.options TEMP=27 TNOM=27 METHOD=GEAR',
-    '.model SWI SW(VT=0.5 VH=0.1 RON=1e-3 ROFF=1e7)',
-    `.model DRECT D(IS=${n(IS_PER_AMP * p.ioutA)} N=${n(emissionFor(p.rectifierDropV))})`,
-    `.model DIDEAL D(IS=1e-12 N=${n(emissionFor(0.03))})`,
+    '.model SWI SW(VT=0.5 VH=0 RON=1e-3 ROFF=1e7)',
+    rectifierModel(p.rectifierDropV, p.ioutA),
+    `.model DIDEAL D(IS=1e-12 N=${n(emissionFor(0.03))} RS=1e-3 CJO=${n(CLAMP_DIODE_CJO_F)})`,
     `VIN in 0 DC ${n(p.vinV)}`,
     `VG1 g1 0 PULSE(0 1 0 ${n(tr)} ${n(tr)} ${n(tOn - tr)} ${n(t.periodS)})`,
     '* Main switch(es) with body diodes',
     ...(twoSwitch ? ['S1 in dt g1 0 SWI', 'DB1 dt in DIDEAL', 'S1B d 0 g1 0 SWI', 'DB1B 0 d DIDEAL'] : ['S1 d 0 g1 0 SWI', 'DB1 0 d DIDEAL']),
     '* Transformer (dots on the first node)',
     `LP ${top} d ${n(p.lmH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`,
-    `LS ${secTop} 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
+    `LS sa 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
     'K1 LP LS 1',
-    ...(leakage === 'primary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary, inside the clamp loop`,
-      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`,
-      // 100 pF of drain-node capacitance (switch output and winding) gives the leakage current a path for the instant the
-      // switch opens; without it the simulator's time step collapses at the clamp diode.
-      'CDN d 0 1e-10'] : []),
-    ...(leakage === 'secondary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H referred to the secondary (n²·Llk), in series with the forward rectifier`,
-      `LLKS sx sa ${n(p.llkH * p.turnsRatio * p.turnsRatio)} IC=${n(ilMinA)}`,
-      // 1 nF across D1 for its junction capacitance: without it the node between Llk and D1 has nothing to carry the
-      // last of the leakage current when D1 turns off, and the simulator's time step collapses.
-      'CJ1 sa sw 1e-9'] : []),
+    ...(leakage === 'primary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary`,
+      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`] : []),
+    ...nodeCapacitance(p, n, top),
     ...resetNetwork(p, n, gate2),
     '* Forward and freewheeling rectifiers, output filter (winding/layout drop as a series resistance), load',
     'D1 sa sw DRECT', 'D2 0 sw DRECT',
@@ -166,6 +200,14 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     `.meas tran il_max MAX i(VIL) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
     `.meas tran il_min MIN i(VIL) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
     ".meas tran il_ripple PARAM='il_max-il_min'",
+    '* Magnetizing current referred to the primary: the winding currents weighted by their turns',
+    `BIM im 0 V=i(LP)+${n(p.turnsRatio)}*i(LS)${p.scheme === 'tertiary-winding' ? `+${n(p.resetTurnsRatio ?? 1)}*i(LR)` : ''}`,
+    `.meas tran im_max MAX v(im) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
+    `.meas tran im_min MIN v(im) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
+    ...(leakage === 'primary' && !twoSwitch
+      ? ['* The drain less the drop across the leakage: the voltage the core resets at, Vin + V(Lm)',
+        'BCORE vcore 0 V=v(in)+v(d)-v(pa)', `.meas tran vcore_pk MAX v(vcore) FROM=${n(t.fromS)} TO=${n(t.stopS)}`]
+      : []),
     '.end',
   ];
   return lines.join('\n') + '\n';

@@ -1,4 +1,4 @@
-import { WINDING_DROP_SHARE } from '../../engine/assumptions';
+import { WINDING_CAPACITANCE_F, WINDING_DROP_SHARE } from '../../engine/assumptions';
 import { waveforms, type NormalisedSpec, type PartsLibrary, type SchemeResult } from '../../engine';
 
 /** Which end of the input range (or the nominal input) a netlist is drawn at. */
@@ -36,8 +36,12 @@ export interface NetlistPoint {
   magnetizingPeakA: number;
   /** Magnetizing current at the start of the on time at this input (the engine's waveform; offset − ΔIm/2 when bipolar). */
   magnetizingStartA: number;
-  /** The engine's own figures at this input, for the header and the cross-check. */
-  expected: { switchPeakV: number; voutV: number; inductorRippleA: number };
+  /** Co(er) of one main-switch position (parts in parallel together), 0 when the library has no such part. */
+  switchCapacitanceF: number;
+  /** Winding and layout capacitance the engine lumps at the drain node. */
+  windingCapacitanceF: number;
+  /** The engine's own figures at this input, for the header and the cross-check (switch stress: its rating basis). */
+  expected: { switchPeakV: number; switchStressV: number; voutV: number; inductorRippleA: number; magnetizingPeakA: number };
 }
 
 /** Input voltage of a case. */
@@ -62,6 +66,7 @@ export function netlistPoint(spec: NormalisedSpec, result: SchemeResult, vinCase
   const w = waveforms(spec, result.scheme, vinV, library);
   const il = w.inductorA.map((p) => p.value);
   const switchPeakV = Math.max(...w.drainV.map((p) => p.value));
+  const sw = d.mainSwitchId ? library.mosfets.find((m) => m.id === d.mainSwitchId) : undefined;
   return {
     scheme: result.scheme, label: result.label, vinCase, vinV, voutV: spec.voutV, ioutA: spec.ioutA, fswHz: spec.fswHz,
     duty, turnsRatio: result.turnsRatio, resetTurnsRatio: result.resetTurnsRatio, lmH: d.magnetizingInductanceH, llkH: d.leakageInductanceH,
@@ -70,6 +75,10 @@ export function netlistPoint(spec: NormalisedSpec, result: SchemeResult, vinCase
     clampCapacitorV: result.clampCapacitorV, clampResistorOhm: d.clampResistorOhm, clampCapacitanceF: d.clampCapacitanceF,
     resonantCapacitanceF: d.resonantCapacitanceF, activeClampVariant: spec.activeClampVariant,
     magnetizingPeakA: result.magnetizingPeakA, magnetizingStartA: w.magnetizingA[0]!.value,
-    expected: { switchPeakV, voutV: spec.voutV, inductorRippleA: Math.max(...il) - Math.min(...il) },
+    switchCapacitanceF: sw ? sw.cossF * d.mainSwitchParallel : 0, windingCapacitanceF: WINDING_CAPACITANCE_F,
+    expected: {
+      switchPeakV, switchStressV: result.switchStressV, voutV: spec.voutV, inductorRippleA: Math.max(...il) - Math.min(...il),
+      magnetizingPeakA: Math.max(...w.magnetizingA.map((p) => Math.abs(p.value))),
+    },
   };
 }

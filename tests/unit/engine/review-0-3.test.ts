@@ -7,6 +7,7 @@ import { describe, expect, test } from 'vitest';
 import { designScheme } from '../../../src/engine/design/pipeline';
 import { magnetizingStartAt, ringCapacitanceF, ringCurrentA, ringPhase } from '../../../src/engine/design/stress';
 import { rcdClampLossW } from '../../../src/engine/schemes/rcd-clamp';
+import { resonantLeakageEnergyJ } from '../../../src/engine/schemes/resonant-reset';
 import { lossesAt } from '../../../src/engine/design/operating-point';
 import { rippleAtA, switchDutyAt as switchDutyAtOf } from '../../../src/engine/design/duty';
 import { waveformsOf } from '../../../src/engine/waveforms';
@@ -331,9 +332,9 @@ describe('4. leakage estimated from the transformer build (McLyman, Transformer 
     expect(l.resetOrClamp).toBeCloseTo(d.clampDiode!.vfV * d.magnetizingPeakA * (d.kV / d.spec.vinNomV) / 2 + snubberW, 9);
     // Against every primary–secondary leakage joule in the snubber, as in engine 0.2: a tenth.
     expect(snubberW).toBeCloseTo(0.1 * 0.5 * d.llkH * ipk * ipk * d.spec.fswHz, 9);
-    // The clamped schemes ring nothing into the drain; the resonant reset rings all of it.
+    // The clamped schemes ring nothing into the drain, nor does the resonant reset, whose tank takes the leakage energy.
     expect(schemeModel('rcd-clamp').spikeLeakageH(d)).toBe(0);
-    expect(schemeModel('resonant-reset').spikeLeakageH(d)).toBe(d.llkH);
+    expect(schemeModel('resonant-reset').spikeLeakageH(d)).toBe(0);
   });
 });
 
@@ -406,5 +407,36 @@ describe('8. windings counted, their copper estimated and both costed from the p
     expect(r.parts.some((p) => p.role === 'transformer-windings')).toBe(false);
     expect(r.partCount).toBe(r.parts.reduce((n, p) => n + p.qty, 0) + 3);
     expect(r.findings.map((f) => f.code)).toContain('windings-not-costed');
+  });
+});
+
+describe('resonant reset: the leakage energy joins the resonance and returns to the input (derived: energy balance of the Lm–Cr tank; ngspice agrees within 2 %)', () => {
+  // At turn-off the leakage hands its current (Ip = n·IL,max + I2) over to Cr while the commutating secondary holds Lm at
+  // 0 V: E = ½·Llk·(Ip² − I2²) is left in Cr and the resonance starts from there. The tank then ends at −I1 with
+  // ½·Lm·I1² = ½·Lm·I2² + E and I1 + I2 = ΔIm, so the current swings about −E/(Lm·ΔIm) and peaks at Vres = Z0·I1.
+  test('closed form of E against the fixed point E = ½·Llk·((a + I2)² − I2²), I2 = ΔIm/2 − E/(Lm·ΔIm)', () => {
+    for (const [llk, lm, a, s] of [[0.16e-6, 100e-6, 9, 0.73], [16e-6, 5e-3, 4, 0.18], [1e-6, 1e-3, 2, 0.5]] as const) {
+      let e = 0;
+      for (let k = 0; k < 200; k++) { const i2 = s / 2 - e / (lm * s); e = 0.5 * llk * ((a + i2) ** 2 - i2 ** 2); }
+      expect(rel(resonantLeakageEnergyJ(llk, lm, a, s), e)).toBeLessThan(1e-9);
+    }
+  });
+  test.each(Object.entries(SPECS))('%s: offset, peak current and resonant peak from the tank’s energy', (_n, raw) => {
+    const d = designScheme(spec(raw), 'resonant-reset', index);
+    const model = schemeModel('resonant-reset');
+    const s = d.magnetizingSwingA;
+    for (const vin of [d.spec.vinMinV, d.spec.vinMaxV]) {
+      const a = d.turnsRatio * (d.spec.ioutA + rippleAtA(d, vin) / 2);
+      const e = resonantLeakageEnergyJ(d.llkH, d.lmH, a, s);
+      const offset = model.magnetizingOffsetA(d, vin);
+      expect(rel(offset, -e / (d.lmH * s))).toBeLessThan(1e-12);
+      const i2 = s / 2 + offset;
+      const i1 = s - i2;
+      // Energy balance of the tank over the half-cycle.
+      expect(rel(0.5 * d.lmH * i1 * i1, 0.5 * d.lmH * i2 * i2 + e)).toBeLessThan(1e-9);
+      expect(rel(model.offStateV(d, vin) - vin, Math.sqrt(d.lmH / d.resonantCF) * i1)).toBeLessThan(1e-9);
+    }
+    // The leakage energy is not lost: the reset loss is the added capacitor's turn-on loss only.
+    expect(model.resetLossW(d, d.spec.vinNomV, 0, d.primaryPeakA, d.primaryRmsA)).toBeCloseTo(0.5 * d.addedCF * d.spec.vinNomV ** 2 * d.spec.fswHz, 12);
   });
 });
