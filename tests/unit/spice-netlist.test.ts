@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { demoPartsLibrary, ENGINE_VERSION, evaluateNormalised, parseSpecInput, SCHEME_IDS } from '../../src/engine';
-import { buildNetlist, emissionFor, spiceNumber } from '../../src/features/spice/netlist';
+import { buildNetlist, emissionFor, rectifierModel, spiceNumber } from '../../src/features/spice/netlist';
 import { netlistPoint } from '../../src/features/spice/operating-point';
 
 const parsed = parseSpecInput({ vinMinV: 36, vinNomV: 48, vinMaxV: 75, voutV: 12, ioutA: 12.5, fswHz: 250e3 });
@@ -58,6 +58,45 @@ describe('SPICE netlist text', () => {
   test('a scheme without a complete design gives a plain RangeError', () => {
     const r = { ...comparison.results[0]!, details: { ...comparison.results[0]!.details, magnetizingInductanceH: Number.NaN } };
     expect(() => netlistPoint(spec, r, 'min', demoPartsLibrary)).toThrow(/no complete design/);
+  });
+
+  test.each(SCHEME_IDS)('%s: the switch node carries the chosen switch’s Co(er) and the winding capacitance the engine lumps there; the magnetizing current is measured', (scheme) => {
+    const result = comparison.results.find((r) => r.scheme === scheme)!;
+    const p = netlistPoint(spec, result, 'max', demoPartsLibrary);
+    const text = buildNetlist(p, ctx);
+    const sw = demoPartsLibrary.mosfets.find((m) => m.id === result.details.mainSwitchId)!;
+    expect(p.switchCapacitanceF).toBeCloseTo(sw.cossF * result.details.mainSwitchParallel, 18);
+    if (scheme === 'two-switch') {
+      expect(text).toContain(`CS1 in dt ${spiceNumber(p.switchCapacitanceF)}`);
+      expect(text).toContain(`CS2 d 0 ${spiceNumber(p.switchCapacitanceF)}`);
+      expect(text).toMatch(/^CW pa d 5e-11$/m);
+    } else if (scheme === 'resonant-reset') {
+      expect(text).toContain(`CR d 0 ${spiceNumber(result.details.resonantCapacitanceF!)}`);
+    } else {
+      expect(text).toContain(`CDN d 0 ${spiceNumber(p.switchCapacitanceF + 50e-12)}`);
+    }
+    // Every scheme draws the leakage (the resonant reset too, whose netlist used to leave it out).
+    expect(text).toMatch(/^LLK (in|dt) pa /m);
+    expect(text).toMatch(/^BIM im 0 V=i\(LP\)\+\S+\*i\(LS\)/m);
+    expect(text).toContain('.meas tran im_max MAX v(im)');
+    expect(p.expected.magnetizingPeakA).toBeGreaterThan(0);
+  });
+
+  test('the clamp switch is driven with a dead time at each edge (0.5 % of the period) inside the off time', () => {
+    const result = comparison.results.find((r) => r.scheme === 'active-clamp')!;
+    const text = buildNetlist(netlistPoint(spec, result, 'min', demoPartsLibrary), ctx);
+    const [delay, rise, , width, period] = /^VG2 g2 0 PULSE\(0 1 (\S+) (\S+) (\S+) (\S+) (\S+)\)$/m.exec(text)!.slice(1).map(Number) as number[];
+    const tOn = result.duty.atVinMin * period!;
+    // Netlist numbers carry six significant digits: the edges are known to a millionth of the period.
+    expect(Math.abs(delay! - tOn - 0.005 * period!)).toBeLessThan(1e-5 * period!);
+    expect(Math.abs(period! - (delay! + rise! + width!) - 0.005 * period!)).toBeLessThan(1e-5 * period!);
+  });
+
+  test('diode models: the rectifier drops its full-load VF with 10 % in RS, and carries a small junction capacitance', () => {
+    const m = /^\.model DRECT D\(IS=(\S+) N=(\S+) RS=(\S+) CJO=(\S+)\)$/.exec(rectifierModel(0.5, 10))!;
+    const [is, n, rs] = m.slice(1, 4).map(Number) as [number, number, number];
+    expect(n * 0.025865 * Math.log(10 / is) + 10 * rs).toBeCloseTo(0.5, 4);
+    expect(10 * rs).toBeCloseTo(0.05, 12);
   });
 
   test('numbers and the diode drop model (Shockley: V = N·VT·ln(I/IS), derived)', () => {
