@@ -4,7 +4,7 @@ import type { Finding } from '../../engine';
  * Customer wording for the engine's findings: a short plain lead per finding code, followed by
  * the engine's own message (which carries the numbers). Unknown codes keep the engine message.
  */
-const LEADS: Record<string, string> = {
+export const FINDING_LEADS: Readonly<Record<string, string>> = {
   'duty-limit-above-reset': 'The transformer core would not reset every cycle',
   'duty-cannot-reach-output': 'The output cannot be held at the lowest input voltage',
   'no-switch-for-stress': 'No primary switch in our parts library takes the voltage stress',
@@ -25,17 +25,21 @@ const LEADS: Record<string, string> = {
   'small-flux-margin': 'Little flux headroom in the transformer core',
   'window-nearly-full': 'The transformer winding window is nearly full',
   'short-on-time': 'Very short switch on-time at high input',
+  'low-efficiency': 'Efficiency is low for any application',
+  'core-data-frequency': 'The switching frequency is outside the core material’s loss data',
   'dcm-at-light-load': 'Discontinuous conduction at light load',
   'unclamped-leakage': 'The leakage-inductance spike needs a snubber',
   'high-line-transient': 'A high-line transient raises the switch voltage',
   'volt-second-clamp': 'The controller needs a volt-second duty clamp',
   'bifilar-insulation': 'Insulation between primary and reset windings needs care',
+  'turns-set-by-transient': 'The transformer turns are set by a high-line transient',
+  'windings-not-costed': 'The transformer windings are not priced',
 };
 
 /** "Lead: engine message." with the first letter of the message kept as the engine wrote it. */
 export function plainReason(finding: Finding): string {
   const message = finding.message.trim().replace(/\.$/, '');
-  const lead = LEADS[finding.code];
+  const lead = FINDING_LEADS[finding.code];
   if (!lead) return `${message.charAt(0).toUpperCase()}${message.slice(1)}.`;
   return `${lead}: ${message}.`;
 }
