@@ -27,8 +27,10 @@ function failMessage(code: FailCode, d: Design): string {
     case 'no-rectifier': return `no ${s.rectifier === 'synchronous' ? 'synchronous-rectifier MOSFET' : 'rectifier'} in the library blocks ${f1(Math.max(d.rectForwardV, d.rectFreewheelV) / s.voltageDerating)} V at ${f1(s.ioutA)} A`;
     case 'no-core': return 'no core in the library has the area product this design needs';
     case 'windings-do-not-fit': return `the windings need ${pct(d.windowFill)} of the usable window of ${d.core?.id ?? 'the core'}`;
-    case 'flux-above-saturation': return `a high-line transient drives the flux swing to ${f3(d.bTransientT)} T, above the available ${f3(d.bAvailableT)} T: the core saturates`;
-    case 'resonant-reset-incomplete': return `with Coss and winding capacitance alone (${f1(d.resonantCF * 1e12)} pF) the resonant half-period limits duty to ${f3(d.resetDutyLimit)}, below the ${f3(d.dutyAtVinMin)} needed`;
+    case 'flux-above-saturation': return d.magnetizingPeakA > 0.5 * d.magnetizingSwingA * 1.05 && d.magnetizingStartA < 0
+      ? `a high-line transient drives the flux swing to ${f3(d.bTransientT)} T, above the ${f3(d.bAvailableT)} T left once the magnetizing current's dc offset (${f3(d.magnetizingStartA + d.magnetizingSwingA / 2)} A, from the leakage energy the reset returns) has taken its share: the core saturates; less leakage (interleaved windings) or a gapped core would lower the offset`
+      : `a high-line transient drives the flux swing to ${f3(d.bTransientT)} T, above the available ${f3(d.bAvailableT)} T: the core saturates`;
+    case 'resonant-reset-incomplete': return `with Coss and winding capacitance alone (${f1(d.resonantCF * 1e12)} pF) the resonant half-period limits duty to ${f3(d.resetDutyLimit)}, below the ${f3(Math.max(d.dutyAtVinMin, d.dutyLimit))} the controller may reach`;
     case 'no-output-capacitor': return `no output capacitor bank in the library reaches ${f1(d.outputCapacitanceF * 1e6)} µF at the ESR needed`;
     case 'no-output-inductor': return 'no output-inductor family in the library stores the energy needed';
     case 'no-clamp-part': return `no clamp or snubber part in the library takes the voltage or power (${f1(d.lossesW.resetOrClamp)} W) of the reset network`;

@@ -122,9 +122,10 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const ref = ix.coresByAp[0];
   if (!ref) { d.fails.push('no-core'); return; }
   const dbLoss = lossLimitedSwingT(ref, s.fswHz, waveformAtNominal(d, model, ref.steinmetzAlpha));
-  // A bipolar scheme's offset (known from the previous pass; none in the first) takes its share of the ±Bsat headroom.
-  const symmetry = model.bipolarFlux && d.magnetizingPeakA > 0 ? d.magnetizingSwingA / (2 * d.magnetizingPeakA) : 1;
-  const bAvail = model.bipolarFlux ? 2 * ref.bsatT * symmetry : ref.bsatT - ref.brT;
+  // A bipolar scheme's offset takes its share of the ±Bsat headroom, but it is not designed around here: the offset
+  // comes from the leakage energy (∝ Np²) over Lm (∝ Np²), so its flux grows as Np³ — more turns against it would only
+  // feed it. The flux check after the magnetizing current is known (setMagnetizing) flags a design it saturates.
+  const bAvail = model.bipolarFlux ? 2 * ref.bsatT : ref.bsatT - ref.brT;
   const transientScale = (s.vinMaxV * model.transientDuty(d)) / d.kV;
   const transientLimitT = (FLUX_MARGIN * bAvail) / transientScale;
   d.fluxLimitedBy = transientLimitT < dbLoss ? 'transient' : 'loss';
@@ -191,6 +192,20 @@ export function designWindings(d: Design, model: ResetSchemeModel): void {
   d.copperMassKg = (COPPER_DENSITY_KG_PER_M3 * core.mltM * at) / CURRENT_DENSITY_A_PER_M2;
   const w = d.index.winding;
   d.windingPrice = w ? d.prices.windingLabour + (d.copperMassKg * w.copperPricePerKg) / d.windingCount : 0;
+}
+
+/**
+ * The flux and magnetizing figures of the chosen core and turns for the design's K as it stands: the pipeline calls it
+ * when it lands the turns ratio on the duty limit without running the front stages again (design/pipeline.ts).
+ */
+export function refreshFlux(d: Design, model: ResetSchemeModel): void {
+  const core = d.core;
+  if (!core) return;
+  const s = d.spec;
+  d.deltaBT = d.kV / (d.turnsPrimary * core.aeM2 * s.fswHz);
+  d.bTransientT = (s.vinMaxV * model.transientDuty(d)) / (d.turnsPrimary * core.aeM2 * s.fswHz);
+  setMagnetizing(d, model, core);
+  setCoreLoss(d, model);
 }
 
 /**

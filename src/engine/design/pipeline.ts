@@ -5,10 +5,10 @@ import type { SchemeId } from '../scheme-ids';
 import { subScores, weightedScore } from '../score';
 import { costAndCount } from './bom';
 import { chooseRectifier, designConversion, designFilter, setRectifierVoltages } from './converter';
-import { designMagnetics, designWindings, setCoreLoss } from './magnetics';
+import { designMagnetics, designWindings, refreshFlux, setCoreLoss } from './magnetics';
 import { efficiencyOf, lossesAt } from './operating-point';
 import { newDesign, resetDesign } from './record';
-import { leakageCoefficientV, leakageShare, leakageVoltSecondsV, switchDutyAt, turnsRatioWithLeakage } from './duty';
+import { leakageCoefficientV, leakageShare, leakageVoltSecondsV, rippleAtA, switchDutyAt, turnsRatioWithLeakage } from './duty';
 import { designCurrents, designSnubber, designStress, settleMagnetizing } from './stress';
 import type { Design } from './types';
 import type { ResetSchemeModel } from '../schemes/types';
@@ -59,6 +59,28 @@ const TRIM_SHARE = 1e-6;
 /** Most trim passes (each a run of the front stages); two or three are usual. */
 const TRIM_PASSES = 10;
 
+/**
+ * Where the trim passes have not settled (the estimated leakage moving with discrete choices — core, turns, the E12
+ * inductor — can keep f(c) from converging), solve the turns ratio at the limit with the design's own Llk, Lm and L as
+ * they stand (design/duty.ts), a hair above the found c so the duty lands at or below the limit, and refresh what
+ * follows K directly (the flux and magnetizing figures); the discrete choices and the leakage estimate keep their last
+ * pass, off by well under 0.1 %. A design with no such ratio keeps its duty, and the check below flags it.
+ */
+function landOnLimit(d: Design, model: ResetSchemeModel): void {
+  const s = d.spec;
+  for (let k = 0; k < 4 && d.dutyAtVinMin > d.dutyLimit; k++) {
+    const c = leakageCoefficientV(d, s.vinMinV) * (1 + TRIM_SHARE);
+    const n = turnsRatioWithLeakage(s.voutV + d.dropsV, leakageShare(d), c, d.dutyLimit, s.vinMinV);
+    if (!Number.isFinite(n)) return;
+    d.turnsRatio = n;
+    d.kV = (s.voutV + d.dropsV) / n;
+    d.rippleA = rippleAtA(d, s.vinMaxV);
+    setSwitchDuties(d);
+  }
+  d.transientDuty = model.transientDuty(d);
+  refreshFlux(d, model);
+}
+
 function runStages(d: Design): Design {
   return designBack(designFront(d));
 }
@@ -98,7 +120,12 @@ export function designFront(d: Design): Design {
     if (!(found > 0) || d.kV + leakageVoltSecondsV(d, spec.vinMinV) >= spec.vinMinV) break;
     const plain = Math.max(found, d.leakageCoefficientV);
     const slope = (found - gotC) / (d.leakageCoefficientV - setC);
-    const secant = slope >= 0 && slope < 0.9 ? d.leakageCoefficientV + (found - d.leakageCoefficientV) / (1 - slope) : plain;
+    // The secant step stays where a turns ratio exists (c below (Dlim·Vin,min)²/(4·(Vout + drops)·(1 + Llk/Lm)), where
+    // the quadratic of turnsRatioWithLeakage has a root) and at most doubles the step of the plain one.
+    const cMax = (d.dutyLimit * spec.vinMinV) ** 2 / (4 * (spec.voutV + d.dropsV) * (1 + leakageShare(d)));
+    const secant = slope >= 0 && slope < 0.9
+      ? Math.min(d.leakageCoefficientV + (found - d.leakageCoefficientV) / (1 - slope), plain + 2 * (plain - d.leakageCoefficientV), cMax * (1 - TRIM_SHARE))
+      : plain;
     setC = d.leakageCoefficientV;
     gotC = found;
     d.leakageCoefficientV = Math.max(plain, secant) * (1 + TRIM_SHARE);
@@ -106,6 +133,7 @@ export function designFront(d: Design): Design {
     frontStages(d, model);
     setSwitchDuties(d);
   }
+  if (d.core && !d.ov?.turnsRatio && d.dutyAtVinMin > d.dutyLimit) landOnLimit(d, model);
   const leakageAtMinV = leakageVoltSecondsV(d, spec.vinMinV);
   d.leakageDropV = d.turnsRatio * leakageAtMinV;
   // The reverse voltages were set before the last pass's leakage was known: set them from the settled design (a design

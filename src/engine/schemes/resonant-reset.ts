@@ -95,7 +95,8 @@ export const resonantReset: ResetSchemeModel = {
     d.addedCF = crTarget > cNode ? snapDownIn(crTarget - cNode, E12) : 0;
     d.resonantCF = cNode + d.addedCF;
     d.resetDutyLimit = resonantDutyLimit(s.fswHz, d.lmH, d.resonantCF);
-    if (d.resetDutyLimit < d.dutyAtVinMin) d.fails.push('resonant-reset-incomplete');
+    // The controller may reach its duty limit in a transient, so the resonance must finish within it too.
+    if (d.resetDutyLimit < Math.max(d.dutyAtVinMin, d.dutyLimit)) d.fails.push('resonant-reset-incomplete');
     d.resonantPeakV = resonantPeakV(d.kV, s.fswHz, d.lmH, d.resonantCF);
     if (d.addedCF > 0) chooseClampCap(d, d.addedCF, s.vinMaxV + peakAt(d, s.vinMaxV));
     d.lowSideDrivers = 1;

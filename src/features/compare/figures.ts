@@ -14,12 +14,22 @@ const duty = (x: number): string => formatPercent(x, 3);
 /** A duty as a bare percentage number, one decimal: 0.3462 → "34.6". */
 const pct = (x: number): string => (x * 100).toFixed(1);
 
+/**
+ * The three duties, or — where the output cannot be reached (a duty of 100 % or more, which the engine reports with
+ * its reason in a finding) — "not reachable" instead of an impossible number.
+ */
+export function dutiesText(r: Pick<SchemeResult, 'duty'>): string {
+  const { atVinMin, atVinNom, atVinMax } = r.duty;
+  if (!(atVinMin < 1 && atVinNom < 1 && atVinMax < 1)) return `not reachable${atVinMax < 1 ? ` at Vin min${atVinNom < 1 ? '' : '/nom'}; ${pct(atVinMax)} % at Vin max` : ''}`;
+  return `${pct(atVinMin)} / ${pct(atVinNom)} / ${pct(atVinMax)} %`;
+}
+
 /** The key figures on each scheme card, in reading order, each with its unit. */
 export const FIGURES: Figure[] = [
   { label: 'Turns ratio Ns/Np', traceKey: 'turnsRatio', value: (r) => r.turnsRatio.toPrecision(3) },
   { label: 'Reset turns Nr/Np', value: (r) => (r.resetTurnsRatio === null ? null : r.resetTurnsRatio.toPrecision(3)) },
   { label: 'Duty limit', traceKey: 'dutyLimit', value: (r) => duty(r.dutyLimit) },
-  { label: 'Duty at Vin min/nom/max', traceKey: 'duty.atVinMin', value: (r) => `${pct(r.duty.atVinMin)} / ${pct(r.duty.atVinNom)} / ${pct(r.duty.atVinMax)} %` },
+  { label: 'Duty at Vin min/nom/max', traceKey: 'duty.atVinMin', value: (r) => dutiesText(r) },
   { label: 'Switch peak (steady)', traceKey: 'switchPeakV', value: (r) => v(r.switchPeakV, 'V') },
   { label: 'Switch design stress', traceKey: 'switchStressV', value: (r) => v(r.switchStressV, 'V') },
   { label: 'Switch rating', traceKey: 'switchRatingV', value: (r) => (r.switchRatingV === null ? 'none fits' : `${r.switchRatingV.toFixed(0)} V${r.switchCount > 1 ? `, ${r.switchCount} switches` : ''}`) },
