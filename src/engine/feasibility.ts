@@ -87,7 +87,7 @@ export function findingsOf(d: Design, model: ResetSchemeModel): Finding[] {
     out.push({ severity: 'info', code: 'volt-second-clamp', message: 'assumes a line feed-forward (volt-second) duty clamp; without it a high-line transient overstresses the switch and walks the core' });
   }
   if (d.core && !d.index.winding) {
-    out.push({ severity: 'info', code: 'windings-not-costed', message: `the parts library has no winding entry: the ${d.windingCount} windings (${f1(d.copperMassKg * 1e3)} g of copper) are counted but not costed` });
+    out.push({ severity: 'info', code: 'windings-not-costed', message: `the parts library has no transformer-winding price: the ${d.windingCount} windings (${f1(d.copperMassKg * 1e3)} g of copper) are counted but not costed` });
   }
   if (d.scheme === 'tertiary-winding' && s.vinMaxV > 100) {
     out.push({ severity: 'info', code: 'bifilar-insulation', message: `a bifilar primary/reset winding sees ${f1(s.vinMaxV * (1 + 1 / s.resetTurnsRatio))} V between adjacent turns; check insulation` });

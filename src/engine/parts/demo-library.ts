@@ -135,7 +135,7 @@ const inductors: InductorPart[] = ([
 
 /** Invented winding-shop price: labour per winding from 0.12 at 10 k pieces, copper wire at 11 per kg. */
 const windings: WindingPart[] = [
-  { id: 'demo-winding-shop-a', description: 'Winding of one transformer winding, labour and copper (invented)', status: 'preferred', tiers: tiers(0.12), copperPricePerKg: 11 },
+  { id: 'demo-winding-shop-a', description: 'Labour of one transformer winding; its copper priced per kg (invented)', status: 'preferred', tiers: tiers(0.12), copperPricePerKg: 11 },
 ];
 
 /** The invented demo library the engine uses when no other library is given. */

@@ -50,7 +50,7 @@ export const NUMERIC_FIELDS: NumericField[] = [
 export const CHOICE_FIELDS: ChoiceField[] = [
   { key: 'rectifier', label: 'Output rectifier', group: 'design', hint: '', options: [{ value: 'diode', label: 'Diodes' }, { value: 'synchronous', label: 'Synchronous MOSFETs' }] },
   { key: 'activeClampVariant', label: 'Active-clamp variant', group: 'design', hint: '', options: [{ value: 'high-side', label: 'High-side (N-MOSFET)' }, { value: 'low-side', label: 'Low-side (P-MOSFET)' }] },
-  { key: 'windingArrangement', label: 'Transformer windings', group: 'design', hint: 'sets the leakage estimate', options: [{ value: 'non-interleaved', label: 'Primary, then secondary' }, { value: 'interleaved', label: 'Interleaved (P–S–P)' }] },
+  { key: 'windingArrangement', label: 'Transformer windings', group: 'design', hint: 'sets the leakage estimate', options: [{ value: 'non-interleaved', label: 'Not interleaved' }, { value: 'interleaved', label: 'Interleaved P–S–P' }] },
 ];
 
 const UNIT_OF: Partial<Record<QuantityKind, string>> = { V: 'V', A: 'A', Hz: 'Hz', F: 'F', H: 'H', W: 'W' };

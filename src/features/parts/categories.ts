@@ -95,8 +95,8 @@ export const CATEGORIES: readonly CategoryInfo[] = [
     fields: [n('energyJ', 'Stored energy ½LI²', 'J'), n('dcrOhmPerH', 'DCR per henry', 'Ω/H')],
   },
   {
-    key: 'windings', label: 'Transformer windings (labour and copper)', singular: 'winding entry',
-    fields: [n('copperPricePerKg', 'Copper wire price per kg', '', { hint: 'library currency per kilogram; the tiers price the labour of one winding' })],
+    key: 'windings', label: 'Transformer windings (labour and copper)', singular: 'winding price',
+    fields: [n('copperPricePerKg', 'Copper wire per kg (library currency)', '', { hint: 'price of a kilogram of winding wire; the tiers price the labour of one winding' })],
   },
 ];
 
