@@ -40,7 +40,7 @@ function fitTurns(d: Design, core: CorePart, model: ResetSchemeModel, deltaBDesi
 }
 
 // One-entry memos of pure functions of the frequency (a sweep point evaluates every scheme at one fs).
-const lossFlux = { core: null as CorePart | null, fHz: NaN, waveform: NaN, deltaBT: NaN };
+const lossFlux = { core: null as CorePart | null, fHz: NaN, deltaBT: NaN };
 const skin = { fHz: NaN, depthM: NaN, awg: NaN };
 
 /**
@@ -48,13 +48,13 @@ const skin = { fHz: NaN, depthM: NaN, awg: NaN };
  * Steinmetz inverse at Pv/W (derived; memo of the last call).
  */
 function lossLimitedSwingT(core: CorePart, fHz: number, waveform: number): number {
-  if (lossFlux.core !== core || lossFlux.fHz !== fHz || lossFlux.waveform !== waveform) {
-    lossFlux.deltaBT = 2 * peakFluxForLossDensityT(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, fHz, CORE_LOSS_DENSITY_W_PER_M3 / waveform);
+  if (lossFlux.core !== core || lossFlux.fHz !== fHz) {
+    lossFlux.deltaBT = 2 * peakFluxForLossDensityT(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, fHz, CORE_LOSS_DENSITY_W_PER_M3);
     lossFlux.core = core;
     lossFlux.fHz = fHz;
-    lossFlux.waveform = waveform;
   }
-  return lossFlux.deltaBT;
+  // (Pv/(W·k·f^α))^(1/β) = (Pv/(k·f^α))^(1/β)·W^(−1/β): the sine form memoised, the waveform applied.
+  return lossFlux.deltaBT * Math.pow(waveform, -1 / core.steinmetzBeta);
 }
 
 /** iGSE waveform factor of a design's flux at the nominal input: rise in K/Vin,nom, fall in the scheme's reset time. */
@@ -139,11 +139,10 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   // core only grows, the flux only falls).
   const prevCore = d.leakageCoefficientV > 0 ? d.core : null;
   const prevTurns = d.turnsPrimary;
-  const minTurns = (core: CorePart): number => (core === prevCore ? Math.max(1, prevTurns) : 1);
   if (forcedId) {
     const core = ix.byId.get(forcedId) as CorePart | undefined;
     if (!core || !('aeM2' in core)) { d.fails.push('unknown-part'); return; }
-    fitTurns(d, core, model, deltaBDesignT, minTurns(core));
+    fitTurns(d, core, model, deltaBDesignT, core === prevCore ? Math.max(1, prevTurns) : 1);
     d.corePrice = unitPriceAt(core.tiers, s.annualVolume);
   } else {
     const prices = d.prices.coresByAp;
@@ -157,7 +156,7 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
     }
     for (let tries = 0; c >= 0 && tries < 4; tries++) {
       const core = ix.coresByAp[c]!;
-      fitTurns(d, core, model, deltaBDesignT, minTurns(core));
+      fitTurns(d, core, model, deltaBDesignT, core === prevCore ? Math.max(1, prevTurns) : 1);
       d.corePrice = prices[c]!;
       if (d.windowFill <= 1) break;
       // Windings do not fit: move to the next larger area product.
@@ -174,7 +173,6 @@ export function designMagnetics(d: Design, model: ResetSchemeModel): void {
   const sk = skinAt(s.fswHz);
   d.skinDepthM = sk.depthM;
   d.strandAwg = sk.awg;
-  setCoreLoss(d, model);
 }
 
 /**
@@ -196,7 +194,8 @@ export function designWindings(d: Design, model: ResetSchemeModel): void {
 
 /**
  * The flux and magnetizing figures of the chosen core and turns for the design's K as it stands: the pipeline calls it
- * when it lands the turns ratio on the duty limit without running the front stages again (design/pipeline.ts).
+ * when it lands the turns ratio on the duty limit without running the front stages again (design/pipeline.ts); the
+ * core loss follows in the back stages.
  */
 export function refreshFlux(d: Design, model: ResetSchemeModel): void {
   const core = d.core;
@@ -205,7 +204,6 @@ export function refreshFlux(d: Design, model: ResetSchemeModel): void {
   d.deltaBT = d.kV / (d.turnsPrimary * core.aeM2 * s.fswHz);
   d.bTransientT = (s.vinMaxV * model.transientDuty(d)) / (d.turnsPrimary * core.aeM2 * s.fswHz);
   setMagnetizing(d, model, core);
-  setCoreLoss(d, model);
 }
 
 /**

@@ -51,24 +51,27 @@ function frontStages(d: Design, model: ResetSchemeModel): void {
 export const LEAKAGE_SETTLE = 1e-2;
 
 /**
- * Relative step above the found leakage coefficient when the turns ratio is solved again at the limit: a little above, so
- * that the duty lands at or below the limit although the estimated leakage itself grows a hair with the ratio (its
- * window fill); the duty then sits below the limit by about this share of the leakage term (~1e-8).
+ * Relative step above the found leakage coefficient when the turns ratio is landed on the limit: a little above, so that
+ * the duty lands at or below it although the ripple, and with it c, moves a hair with the ratio; the duty then sits
+ * below the limit by about this share of the leakage term (~1e-8).
  */
 const TRIM_SHARE = 1e-6;
-/** Most trim passes (each a run of the front stages); two or three are usual. */
-const TRIM_PASSES = 10;
 
 /**
- * Where the trim passes have not settled (the estimated leakage moving with discrete choices — core, turns, the E12
- * inductor — can keep f(c) from converging), solve the turns ratio at the limit with the design's own Llk, Lm and L as
- * they stand (design/duty.ts), a hair above the found c so the duty lands at or below the limit, and refresh what
- * follows K directly (the flux and magnetizing figures); the discrete choices and the leakage estimate keep their last
- * pass, off by well under 0.1 %. A design with no such ratio keeps its duty, and the check below flags it.
+ * Solve the turns ratio at the limit with the design's own Llk, Lm and L as they stand (design/duty.ts), a hair above
+ * the found c so the duty lands at or below the limit, and refresh what follows K directly (the flux and magnetizing
+ * figures). The discrete choices (core, turns, the E12 inductor) and the leakage estimate keep their last pass: the
+ * ratio moves by at most the 1 % the passes leave of the leakage's share of the duty, so they stay the ones the design
+ * needs (another front pass per design would cost more than all of this; the estimated leakage moves with the ratio
+ * through the window fill, so such passes creep rather than settle). A design with no such ratio keeps its duty, and
+ * the check below flags it.
  */
+/** Most solves when landing (c moves with the ratio only through the ripple: each solve cuts the excess ten- to a hundredfold). */
+const LAND_STEPS = 12;
+
 function landOnLimit(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
-  for (let k = 0; k < 4 && d.dutyAtVinMin > d.dutyLimit; k++) {
+  for (let k = 0; k < LAND_STEPS && d.dutyAtVinMin > d.dutyLimit; k++) {
     const c = leakageCoefficientV(d, s.vinMinV) * (1 + TRIM_SHARE);
     const n = turnsRatioWithLeakage(s.voutV + d.dropsV, leakageShare(d), c, d.dutyLimit, s.vinMinV);
     if (!Number.isFinite(n)) return;
@@ -109,30 +112,7 @@ export function designFront(d: Design): Design {
   }
   setSwitchDuties(d);
   // The passes stop once c has settled to 1 %, so the duty at Vin,min can still sit a little above the limit (by up to
-  // 1 % of the leakage share). Solve the turns ratio again with the leakage the design now has (a hair above it, so the
-  // duty lands at or just below the limit) until it holds; each pass only lets c grow, as above. The estimated leakage
-  // grows with the ratio (through the window fill), so c is a fixed point c = f(c): a secant step on f(c) − c reaches it
-  // in a few passes where the plain step creeps (its slope can be 0.2–0.5 after the turns step up).
-  let setC = NaN;
-  let gotC = NaN;
-  for (let trim = 0; trim < TRIM_PASSES && d.core && !d.ov?.turnsRatio && d.dutyAtVinMin > d.dutyLimit; trim++) {
-    const found = leakageCoefficientV(d, spec.vinMinV);
-    if (!(found > 0) || d.kV + leakageVoltSecondsV(d, spec.vinMinV) >= spec.vinMinV) break;
-    const plain = Math.max(found, d.leakageCoefficientV);
-    const slope = (found - gotC) / (d.leakageCoefficientV - setC);
-    // The secant step stays where a turns ratio exists (c below (Dlim·Vin,min)²/(4·(Vout + drops)·(1 + Llk/Lm)), where
-    // the quadratic of turnsRatioWithLeakage has a root) and at most doubles the step of the plain one.
-    const cMax = (d.dutyLimit * spec.vinMinV) ** 2 / (4 * (spec.voutV + d.dropsV) * (1 + leakageShare(d)));
-    const secant = slope >= 0 && slope < 0.9
-      ? Math.min(d.leakageCoefficientV + (found - d.leakageCoefficientV) / (1 - slope), plain + 2 * (plain - d.leakageCoefficientV), cMax * (1 - TRIM_SHARE))
-      : plain;
-    setC = d.leakageCoefficientV;
-    gotC = found;
-    d.leakageCoefficientV = Math.max(plain, secant) * (1 + TRIM_SHARE);
-    d.fails.length = 0;
-    frontStages(d, model);
-    setSwitchDuties(d);
-  }
+  // 1 % of the leakage share): land the turns ratio on it with the leakage the design now has.
   if (d.core && !d.ov?.turnsRatio && d.dutyAtVinMin > d.dutyLimit) landOnLimit(d, model);
   const leakageAtMinV = leakageVoltSecondsV(d, spec.vinMinV);
   d.leakageDropV = d.turnsRatio * leakageAtMinV;

@@ -36,6 +36,16 @@ function cosineIntegral(alpha: number): number {
   return (2 * Math.sqrt(Math.PI) * gamma((alpha + 1) / 2)) / gamma(alpha / 2 + 1);
 }
 
+// One-entry memo of the α-only denominator (a library's cores share one α; a sweep evaluates thousands of designs).
+const denominator = { alpha: NaN, value: NaN };
+function igseDenominator(alpha: number): number {
+  if (denominator.alpha !== alpha) {
+    denominator.value = Math.pow(2, alpha) / (Math.pow(2 * Math.PI, alpha - 1) * cosineIntegral(alpha));
+    denominator.alpha = alpha;
+  }
+  return denominator.value;
+}
+
 /**
  * Ratio of the improved generalized Steinmetz equation's loss for a flux that rises by ΔB in `riseShare`·T and falls
  * back in `fallShare`·T (linear segments, any dwell at constant flux adds nothing) to the sine-wave Steinmetz loss
@@ -53,5 +63,5 @@ export function igseWaveformFactor(alpha: number, riseShare: number, fallShare: 
     throw new RangeError(`flux rise and fall shares must lie in (0, 1], got ${riseShare}, ${fallShare}`);
   }
   const segments = Math.pow(riseShare, 1 - alpha) + Math.pow(fallShare, 1 - alpha);
-  return (Math.pow(2, alpha) * segments) / (Math.pow(2 * Math.PI, alpha - 1) * cosineIntegral(alpha));
+  return segments * igseDenominator(alpha);
 }

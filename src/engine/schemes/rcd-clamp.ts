@@ -23,7 +23,7 @@ export function rcdClampLossW(lmH: number, imOffA: number, llkH: number, ipPkA: 
   return fswHz * (0.5 * lmH * imOffA * imOffA + Math.max(0, 0.5 * llkH * ipPkA * ipPkA - 0.5 * nodeCapF * clampV * clampV));
 }
 
-/** Most fixed-point steps for the clamp voltage a snapped resistor settles at (Vcl moves P only through the ring terms, weakly: 3–6 steps reach 1e-9). */
+/** Most fixed-point steps for the clamp voltage a snapped resistor settles at (Vcl moves P only through the ring terms, weakly: 2–5 steps reach 1e-8). */
 const CLAMP_SETTLE_STEPS = 12;
 
 /**
@@ -83,7 +83,7 @@ export const rcdClamp: ResetSchemeModel = {
       d.clampV = v;
       settleMagnetizing(d, this);
       p = rcdClampLossW(d.lmH, d.magnetizingPeakA, d.llkH, d.primaryPeakA, cNode, d.clampV, fs);
-      if (moved <= 1e-9 * v) break;
+      if (moved <= 1e-8 * v) break;
     }
     d.switchPeakV = peakOffStateV(d, this);
     d.transientV = Math.max(this.transientV(d), d.switchPeakV);
