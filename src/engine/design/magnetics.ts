@@ -213,6 +213,14 @@ export function refreshFlux(d: Design, model: ResetSchemeModel): void {
 export function setCoreLoss(d: Design, model: ResetSchemeModel): void {
   const core = d.core;
   if (!core) return;
+  const fall = model.fluxFallShare(d, d.spec.vinNomV);
+  // The front stages set it and the back stages ask again: only a reset network that moves the fall time (the RCD
+  // clamp's settled voltage) or a landed ratio makes the four powers worth computing twice. A sweep's points that share
+  // the front stages share it too.
+  if (d.coreLossW > 0 && d.coreLossFall === fall && d.coreLossKV === d.kV && d.coreLossDeltaBT === d.deltaBT) return;
   d.coreLossW = core.veM3 * waveformAtNominal(d, model, core.steinmetzAlpha)
     * coreLossDensityWPerM3(core.steinmetzK, core.steinmetzAlpha, core.steinmetzBeta, d.spec.fswHz, d.deltaBT / 2);
+  d.coreLossFall = fall;
+  d.coreLossKV = d.kV;
+  d.coreLossDeltaBT = d.deltaBT;
 }

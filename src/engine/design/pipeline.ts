@@ -47,8 +47,12 @@ function frontStages(d: Design, model: ResetSchemeModel): void {
   designMagnetics(d, model);
 }
 
-/** Passes after the first are repeated while c = Llk·IL,max·fs moves by more than this share (Llk depends on Np and the core). */
-export const LEAKAGE_SETTLE = 1e-2;
+/**
+ * Passes after the first are repeated while c = Llk·IL,max·fs moves by more than this share (Llk depends on Np, the core
+ * and the window fill). The turns ratio is landed on the duty limit afterwards, so this only decides how settled the
+ * discrete choices are: 3 % of c moves the ratio by well under 0.1 %.
+ */
+export const LEAKAGE_SETTLE = 3e-2;
 
 /**
  * Relative step above the found leakage coefficient when the turns ratio is landed on the limit: a little above, so that
@@ -61,7 +65,7 @@ const TRIM_SHARE = 1e-6;
  * Solve the turns ratio at the limit with the design's own Llk, Lm and L as they stand (design/duty.ts), a hair above
  * the found c so the duty lands at or below the limit, and refresh what follows K directly (the flux and magnetizing
  * figures). The discrete choices (core, turns, the E12 inductor) and the leakage estimate keep their last pass: the
- * ratio moves by at most the 1 % the passes leave of the leakage's share of the duty, so they stay the ones the design
+ * ratio moves by at most the 3 % the passes leave of the leakage's share of the duty, so they stay the ones the design
  * needs (another front pass per design would cost more than all of this; the estimated leakage moves with the ratio
  * through the window fill, so such passes creep rather than settle). A design with no such ratio keeps its duty, and
  * the check below flags it.
@@ -111,8 +115,8 @@ export function designFront(d: Design): Design {
     frontStages(d, model);
   }
   setSwitchDuties(d);
-  // The passes stop once c has settled to 1 %, so the duty at Vin,min can still sit a little above the limit (by up to
-  // 1 % of the leakage share): land the turns ratio on it with the leakage the design now has.
+  // The passes stop once c has settled to 3 %, so the duty at Vin,min can still sit a little above the limit (by up to
+  // 3 % of the leakage share): land the turns ratio on it with the leakage the design now has.
   if (d.core && !d.ov?.turnsRatio && d.dutyAtVinMin > d.dutyLimit) landOnLimit(d, model);
   const leakageAtMinV = leakageVoltSecondsV(d, spec.vinMinV);
   d.leakageDropV = d.turnsRatio * leakageAtMinV;
@@ -125,6 +129,7 @@ export function designFront(d: Design): Design {
     const noRatio = !d.ov?.turnsRatio && c > 0 && !Number.isFinite(turnsRatioWithLeakage(spec.voutV + d.dropsV, leakageShare(d), c, d.dutyLimit, spec.vinMinV));
     d.fails.push(noRatio ? 'leakage-commutation' : 'duty-cannot-reach-output');
   }
+  setCoreLoss(d, model);
   return d;
 }
 

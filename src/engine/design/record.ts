@@ -18,7 +18,7 @@ export function newDesign(spec: NormalisedSpec, scheme: SchemeId, index: Library
     rippleA: NaN, outputInductanceH: NaN, outputCapacitanceF: NaN, inductor: null, inductorPrice: 0, outCap: null, outCapQty: 0, outCapPrice: 0,
     rectForwardV: NaN, rectFreewheelV: NaN, rectDiode: null, rectSr: null, rectQty: 1, rectPrice: 0,
     core: null, corePrice: 0, turnsPrimary: 0, deltaBT: NaN, bTransientT: NaN, bAvailableT: NaN, lmH: NaN, llkH: NaN,
-    magnetizingSwingA: NaN, magnetizingStartA: NaN, magnetizingPeakA: NaN, fluxLimitedBy: 'loss', windowFill: NaN, skinDepthM: NaN, strandAwg: NaN, coreLossW: 0,
+    magnetizingSwingA: NaN, magnetizingStartA: NaN, magnetizingPeakA: NaN, ringMinA: NaN, ringNomA: NaN, ringMaxA: NaN, fluxLimitedBy: 'loss', windowFill: NaN, skinDepthM: NaN, strandAwg: NaN, coreLossW: 0, coreLossFall: NaN, coreLossKV: NaN, coreLossDeltaBT: NaN,
     windingCount: 0, copperMassKg: 0, windingPrice: 0,
     primaryPeakA: NaN, primaryRmsA: NaN,
     clampV: NaN, resonantPeakV: NaN, resonantCF: NaN, addedCF: 0, clampResOhm: NaN, clampCapF: NaN,
@@ -97,11 +97,17 @@ export function resetDesign(d: Design, spec: NormalisedSpec, scheme: SchemeId, i
   d.magnetizingSwingA = NaN;
   d.magnetizingStartA = NaN;
   d.magnetizingPeakA = NaN;
+  d.ringMinA = NaN;
+  d.ringNomA = NaN;
+  d.ringMaxA = NaN;
   d.fluxLimitedBy = 'loss';
   d.windowFill = NaN;
   d.skinDepthM = NaN;
   d.strandAwg = NaN;
   d.coreLossW = 0;
+  d.coreLossFall = NaN;
+  d.coreLossKV = NaN;
+  d.coreLossDeltaBT = NaN;
   d.windingCount = 0;
   d.copperMassKg = 0;
   d.windingPrice = 0;
@@ -204,11 +210,17 @@ export function copyDesign(d: Design, from: Design): Design {
   d.magnetizingSwingA = from.magnetizingSwingA;
   d.magnetizingStartA = from.magnetizingStartA;
   d.magnetizingPeakA = from.magnetizingPeakA;
+  d.ringMinA = from.ringMinA;
+  d.ringNomA = from.ringNomA;
+  d.ringMaxA = from.ringMaxA;
   d.fluxLimitedBy = from.fluxLimitedBy;
   d.windowFill = from.windowFill;
   d.skinDepthM = from.skinDepthM;
   d.strandAwg = from.strandAwg;
   d.coreLossW = from.coreLossW;
+  d.coreLossFall = from.coreLossFall;
+  d.coreLossKV = from.coreLossKV;
+  d.coreLossDeltaBT = from.coreLossDeltaBT;
   d.windingCount = from.windingCount;
   d.copperMassKg = from.copperMassKg;
   d.windingPrice = from.windingPrice;

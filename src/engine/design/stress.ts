@@ -58,7 +58,10 @@ export function ringPhase(x: number): number {
 export function ringCurrentA(d: Design, model: ResetSchemeModel, vinV: number): number {
   const c = ringCapacitanceF(d, model);
   if (model.bipolarFlux || !(c > 0) || !(d.lmH > 0)) return 0;
-  const tOffS = (1 - switchDutyAt(d, vinV)) / d.spec.fswHz;
+  const s = d.spec;
+  // The back stages ask at the three lines, whose duties the front stages have settled.
+  const duty = vinV === s.vinMinV ? d.dutyAtVinMin : vinV === s.vinNomV ? d.dutyAtVinNom : vinV === s.vinMaxV ? d.dutyAtVinMax : switchDutyAt(d, vinV);
+  const tOffS = (1 - duty) / s.fswHz;
   const vr = model.resetVoltageV(d, vinV);
   const t0 = tOffS - (d.magnetizingSwingA * d.lmH) / vr;
   const ring = vr * Math.sqrt(c / d.lmH) * Math.sin(ringPhase(t0 / Math.sqrt(d.lmH * c)));
@@ -73,7 +76,13 @@ export function ringCurrentA(d: Design, model: ResetSchemeModel, vinV: number): 
  * switch is chosen), offset − ΔIm/2 for the bipolar ones (design/magnetics.ts).
  */
 export function magnetizingStartAt(d: Design, model: ResetSchemeModel, vinV: number): number {
-  return model.bipolarFlux ? model.magnetizingOffsetA(d, vinV) - d.magnetizingSwingA / 2 : -ringCurrentA(d, model, vinV);
+  if (model.bipolarFlux) return model.magnetizingOffsetA(d, vinV) - d.magnetizingSwingA / 2;
+  // The three lines' rings, kept by settleMagnetizing (the losses and the efficiency curve ask for them again and again).
+  const s = d.spec;
+  if (vinV === s.vinNomV && d.ringNomA >= 0) return -d.ringNomA;
+  if (vinV === s.vinMinV && d.ringMinA >= 0) return -d.ringMinA;
+  if (vinV === s.vinMaxV && d.ringMaxA >= 0) return -d.ringMaxA;
+  return -ringCurrentA(d, model, vinV);
 }
 
 /**
@@ -83,7 +92,10 @@ export function magnetizingStartAt(d: Design, model: ResetSchemeModel, vinV: num
  */
 export function settleMagnetizing(d: Design, model: ResetSchemeModel): void {
   if (model.bipolarFlux) return;
-  d.magnetizingStartA = Math.max(magnetizingStartAt(d, model, d.spec.vinMinV), magnetizingStartAt(d, model, d.spec.vinMaxV));
+  d.ringMinA = ringCurrentA(d, model, d.spec.vinMinV);
+  d.ringNomA = ringCurrentA(d, model, d.spec.vinNomV);
+  d.ringMaxA = ringCurrentA(d, model, d.spec.vinMaxV);
+  d.magnetizingStartA = -Math.min(d.ringMinA, d.ringMaxA);
   d.magnetizingPeakA = d.magnetizingSwingA + d.magnetizingStartA;
   designCurrents(d, model);
 }

@@ -91,12 +91,20 @@ export interface Design {
   magnetizingStartA: number;
   /** Largest magnitude of the magnetizing current, max(|start|, |start + ΔIm|): sets the flux peak. */
   magnetizingPeakA: number;
+  /** Drain-ring current left at turn-on at Vin min, nom and max (A, unipolar schemes; NaN until the switch is known). */
+  ringMinA: number;
+  ringNomA: number;
+  ringMaxA: number;
   /** Which limit set the design flux swing: core loss or the high-line transient against saturation. */
   fluxLimitedBy: 'loss' | 'transient';
   windowFill: number;
   skinDepthM: number;
   strandAwg: number;
   coreLossW: number;
+  /** The flux fall share, K and ΔB the core loss was computed with (it is computed again only when one moves). */
+  coreLossFall: number;
+  coreLossKV: number;
+  coreLossDeltaBT: number;
   /** Transformer windings (primary, secondary and any reset winding). */
   windingCount: number;
   /** Copper of all windings at the design current density (kg). */
