@@ -61,6 +61,9 @@ export const LEAKAGE_SETTLE = 3e-2;
  */
 const TRIM_SHARE = 1e-6;
 
+/** Most solves when landing (c moves with the ratio only through the ripple: each solve cuts the excess ten- to a hundredfold). */
+const LAND_STEPS = 12;
+
 /**
  * Solve the turns ratio at the limit with the design's own Llk, Lm and L as they stand (design/duty.ts), a hair above
  * the found c so the duty lands at or below the limit, and refresh what follows K directly (the flux and magnetizing
@@ -70,9 +73,6 @@ const TRIM_SHARE = 1e-6;
  * through the window fill, so such passes creep rather than settle). A design with no such ratio keeps its duty, and
  * the check below flags it.
  */
-/** Most solves when landing (c moves with the ratio only through the ripple: each solve cuts the excess ten- to a hundredfold). */
-const LAND_STEPS = 12;
-
 function landOnLimit(d: Design, model: ResetSchemeModel): void {
   const s = d.spec;
   for (let k = 0; k < LAND_STEPS && d.dutyAtVinMin > d.dutyLimit; k++) {
