@@ -52,7 +52,7 @@ export function resultOf(d: Design): SchemeResult {
   };
   return {
     scheme: d.scheme, label: model.label, feasible: d.feasible, findings: findingsOf(d, model),
-    turnsRatio: d.turnsRatio, resetTurnsRatio: d.scheme === 'tertiary-winding' ? d.resetTurnsRatio : null,
+    turnsRatio: d.turnsRatio, resetTurnsRatio: model.resetWindingRatio(d),
     dutyLimit: d.dutyLimit, duty: { atVinMin: d.dutyAtVinMin, atVinNom: d.dutyAtVinNom, atVinMax: d.dutyAtVinMax },
     switchCount: model.switchCount, switchPeakV: d.switchPeakV, switchStressV: d.switchStressV, switchRatingV: nullIfNaN(d.switchRatingV),
     rectifierReverseV: { forward: d.rectForwardV, freewheel: d.rectFreewheelV },

@@ -2,14 +2,11 @@ import {
   CONTROLLER_MIN_ON_TIME_S, EFFICIENCY_FLOOR, LEADING_EDGE_BLANKING_S, MIN_ON_TIME_S, SMALL_MARGIN_SHARE, STEINMETZ_FIT_MAX_HZ, STEINMETZ_FIT_MIN_HZ,
 } from './assumptions';
 import type { Design, FailCode } from './design/types';
+import type { Finding } from './finding';
 import type { ResetSchemeModel } from './schemes/types';
 
 /** One finding on a scheme: `fail` makes it infeasible; `warn` is a near-limit; `info` a note. */
-export interface Finding {
-  severity: 'fail' | 'warn' | 'info';
-  code: string;
-  message: string;
-}
+export type { Finding } from './finding';
 
 const f1 = (x: number): string => (Number.isFinite(x) ? x.toFixed(1) : String(x));
 const f3 = (x: number): string => (Number.isFinite(x) ? x.toFixed(3) : String(x));
@@ -83,14 +80,9 @@ export function findingsOf(d: Design, model: ResetSchemeModel): Finding[] {
   if (d.core && d.fluxLimitedBy === 'transient' && model.transientDuty(d) >= d.dutyLimit - 1e-9) {
     out.push({ severity: 'info', code: 'turns-set-by-transient', message: `the primary turns (${d.turnsPrimary}) are set by the high-line transient, not by core loss or leakage: if duty reaches ${f3(d.dutyLimit)} at ${s.vinMaxV} V the flux must stay below saturation, so the steady swing is held to ${f3(d.deltaBT)} T; a volt-second (line feed-forward) duty clamp would allow fewer turns, and with them less leakage and copper` });
   }
-  if (d.scheme === 'active-clamp') {
-    out.push({ severity: 'info', code: 'volt-second-clamp', message: 'assumes a line feed-forward (volt-second) duty clamp; without it a high-line transient overstresses the switch and walks the core' });
-  }
   if (d.core && !d.index.winding) {
     out.push({ severity: 'info', code: 'windings-not-costed', message: `the parts library has no transformer-winding price: the ${d.windingCount} windings (${f1(d.copperMassKg * 1e3)} g of copper) are counted but not costed` });
   }
-  if (d.scheme === 'tertiary-winding' && s.vinMaxV > 100) {
-    out.push({ severity: 'info', code: 'bifilar-insulation', message: `a bifilar primary/reset winding sees ${f1(s.vinMaxV * (1 + 1 / s.resetTurnsRatio))} V between adjacent turns; check insulation` });
-  }
+  for (const f of model.ownFindings(d)) out.push(f);
   return out;
 }

@@ -156,6 +156,15 @@ export const activeClamp: ResetSchemeModel = {
   magnetizingOffsetA: magnetizingOffsetAt,
   // Cc resets Lm over the whole off time (derived: volt-seconds on Lm).
   fluxFallShare: (d, vinV) => Math.max(0, 1 - d.kV / vinV),
+  // Cc holds Vin·D/(1 − D) across Lm + Llk; Lm itself resets with K over the off time (the rest sits on Llk).
+  offShape(d, vinV, tOffS, imEnd) {
+    const vOff = this.offStateV(d, vinV);
+    const swing = d.magnetizingSwingA;
+    return { knots: [0, tOffS], v: () => vOff, im: (x) => imEnd - (swing * x) / tOffS, vLmOff: d.kV / (d.spec.fswHz * tOffS) };
+  },
+  primaryOffA: (imA) => imA,
+  ownFindings: () => [{ severity: 'info', code: 'volt-second-clamp', message: 'assumes a line feed-forward (volt-second) duty clamp; without it a high-line transient overstresses the switch and walks the core' }],
+  resetWindingRatio: () => null,
   resetLossW(d, vinV) {
     if (!d.auxSwitch) return 0;
     const irms = auxRmsAt(d, vinV);

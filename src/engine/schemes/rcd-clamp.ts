@@ -5,6 +5,7 @@ import { switchDutyAt } from '../design/duty';
 import { setRectifierVoltages } from '../design/converter';
 import { magnetizingStartAt, peakOffStateV, ringCapacitanceF, settleMagnetizing } from '../design/stress';
 import { chooseClampCap, chooseClampDiode, vfOf } from './common';
+import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
 
 /** RCD clamp voltage needed at the design duty, with the 20 % margin, per volt of Vin,min: Vcl/Vin,min = 1.2·Dlim/(1 − Dlim) (derived by volt-second balance). */
@@ -101,6 +102,12 @@ export const rcdClamp: ResetSchemeModel = {
   magnetizingOffsetA: () => 0,
   // Reset at −Vcl: the flux falls in K/Vcl of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d) => Math.min(1, d.kV / d.clampV),
+  offShape(d, vinV, tOffS, imEnd) {
+    return unipolarOffShape(d, this, vinV, tOffS, imEnd, vinV);
+  },
+  primaryOffA: (imA) => imA,
+  ownFindings: () => [],
+  resetWindingRatio: () => null,
   resetLossW(d, vinV, _duty, primaryPeakA) {
     const imOff = d.magnetizingSwingA + magnetizingStartAt(d, this, vinV);
     const p = rcdClampLossW(d.lmH, imOff, d.llkH, primaryPeakA, ringCapacitanceF(d, this), d.clampV, d.spec.fswHz);

@@ -3,6 +3,7 @@ import { E12, snapDownIn } from '../eseries';
 import { rippleAtA } from '../design/duty';
 import type { Design } from '../design/types';
 import { chooseClampCap, withMargin } from './common';
+import { arcKnots } from './off-shape';
 import type { ResetSchemeModel } from './types';
 
 /**
@@ -106,6 +107,30 @@ export const resonantReset: ResetSchemeModel = {
   // Cr is chosen so that half a resonant period fills 1 − Dr of the period; the half-cosine fall is taken as linear over
   // that time (its iGSE is about 7 % higher at α = 1.4; see src/engine/README.md).
   fluxFallShare: () => 1 - RESONANT_RESET_DUTY,
+  // The tank starts where the leakage left it (Cr above Vin, current I2 = imEnd) and swings with peak current
+  // I1 = ΔIm − I2: v = Vin + Z0·I1·sin(ωx + φ0), im = I1·cos(ωx + φ0), cos φ0 = I2/I1, until the drain is back at Vin
+  // and the current at −I1 (derived above).
+  offShape(d, vinV, tOffS, imEnd) {
+    const omega = 1 / Math.sqrt(d.lmH * d.resonantCF);
+    const i1 = d.magnetizingSwingA - imEnd;
+    const vPk = peakAt(d, vinV);
+    const phi0 = Math.acos(Math.max(-1, Math.min(1, imEnd / i1)));
+    const th = Math.min((Math.PI - phi0) / omega, tOffS);
+    const knots = [0];
+    arcKnots(0, th, knots);
+    // The drawn peak is the real one: a knot where the sine tops out.
+    const xPeak = (Math.PI / 2 - phi0) / omega;
+    if (xPeak > 0 && xPeak < th) knots.splice(knots.findIndex((x) => x > xPeak), 0, xPeak);
+    if (th < tOffS) knots.push(tOffS);
+    return {
+      knots,
+      v: (x) => (x >= th ? vinV : vinV + vPk * Math.sin(omega * x + phi0)),
+      im: (x) => (x >= th ? -i1 : i1 * Math.cos(omega * x + phi0)),
+    };
+  },
+  primaryOffA: (imA) => imA,
+  ownFindings: () => [],
+  resetWindingRatio: () => null,
   resetLossW(d, vinV) {
     return 0.5 * d.addedCF * vinV * vinV * d.spec.fswHz;
   },

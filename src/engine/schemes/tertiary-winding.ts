@@ -1,5 +1,6 @@
 import { BIFILAR_LEAKAGE_SHARE } from '../assumptions';
 import { chooseClampDiode, vfOf, withMargin } from './common';
+import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
 
 /**
@@ -51,6 +52,17 @@ export const tertiaryWinding: ResetSchemeModel = {
   magnetizingOffsetA: () => 0,
   // The reset winding puts Vin/r on Lm (r = Nr/Np), so the flux falls in K·r/Vin of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d, vinV) => Math.min(1, (d.kV * d.resetTurnsRatio) / vinV),
+  offShape(d, vinV, tOffS, imEnd) {
+    return unipolarOffShape(d, this, vinV, tOffS, imEnd, vinV);
+  },
+  // The reset winding, not the primary, carries the magnetizing current back to the input.
+  primaryOffA: () => 0,
+  // Wound bifilar with the primary, the reset winding sits next to it at Vin·(1 + Nr/Np) (100 V: where insulation
+  // between adjacent turns starts to need care; common practice).
+  ownFindings: (d) => (d.spec.vinMaxV > 100
+    ? [{ severity: 'info', code: 'bifilar-insulation', message: `a bifilar primary/reset winding sees ${(d.spec.vinMaxV * (1 + 1 / d.spec.resetTurnsRatio)).toFixed(1)} V between adjacent turns; check insulation` }]
+    : []),
+  resetWindingRatio: (d) => d.resetTurnsRatio,
   resetLossW(d, _vinV, duty, primaryPeakA) {
     return vfOf(d) * d.magnetizingPeakA * duty / 2 + 0.5 * this.spikeLeakageH(d) * primaryPeakA * primaryPeakA * d.spec.fswHz;
   },

@@ -1,5 +1,6 @@
 import { RAIL_CLAMP_OVERSHOOT } from '../assumptions';
 import { chooseClampDiode, vfOf, withMargin } from './common';
+import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
 
 /**
@@ -44,6 +45,13 @@ export const twoSwitch: ResetSchemeModel = {
   magnetizingOffsetA: () => 0,
   // Reset at −Vin through the clamp diodes: the flux falls in K/Vin of the period (derived: volt-seconds on Lm).
   fluxFallShare: (d, vinV) => Math.min(1, d.kV / vinV),
+  // After the reset each drain rests at Vin/2: the two Co(er) share the input.
+  offShape(d, vinV, tOffS, imEnd) {
+    return unipolarOffShape(d, this, vinV, tOffS, imEnd, vinV / 2);
+  },
+  primaryOffA: (imA) => imA,
+  ownFindings: () => [],
+  resetWindingRatio: () => null,
   resetLossW(d, vinV, duty, primaryPeakA) {
     const tLeakS = (d.llkH * primaryPeakA) / vinV;
     return 2 * vfOf(d) * (d.magnetizingPeakA * duty / 2 + 0.5 * primaryPeakA * tLeakS * d.spec.fswHz);

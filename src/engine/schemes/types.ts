@@ -1,6 +1,19 @@
 import type { NormalisedSpec } from '../../schemas/spec';
 import type { Design } from '../design/types';
+import type { Finding } from '../finding';
 import type { SchemeId } from '../scheme-ids';
+
+/**
+ * Drain voltage and magnetizing current over the off time of one scheme, and the times to sample them at (x from 0 at
+ * turn-off to tOff; a corner of the drawing sits on a knot).
+ */
+export interface OffShape {
+  knots: number[];
+  v: (x: number) => number;
+  im: (x: number) => number;
+  /** Voltage across Lm during the off time when the secondary sees it (the active clamp), else undefined. */
+  vLmOff?: number;
+}
 
 /** Formula text and source for the scheme-specific key figures (shown on hover). */
 export interface SchemeFormulas {
@@ -69,6 +82,14 @@ export interface ResetSchemeModel {
   spikeLeakageH(d: Design): number;
   /** Share of the period over which the flux falls back during reset at vinV (the iGSE core loss reads it). */
   fluxFallShare(d: Design, vinV: number): number;
+  /** The off time of the idealised waveforms at vinV: drain voltage and magnetizing current from turn-off on (derived). */
+  offShape(d: Design, vinV: number, tOffS: number, imEnd: number): OffShape;
+  /** Primary current in the off time for a magnetizing current `imA` (0 where a reset winding carries it instead). */
+  primaryOffA(imA: number): number;
+  /** Findings only this scheme raises (its assumptions, its own hazards), after the common ones. */
+  ownFindings(d: Design): Finding[];
+  /** Nr/Np of a reset winding where the scheme has one, else null (the result's resetTurnsRatio). */
+  resetWindingRatio(d: Design): number | null;
   /** Reset/clamp loss at vinV and load (W), excluding nothing the common terms already count. */
   resetLossW(d: Design, vinV: number, duty: number, primaryPeakA: number, primaryRmsA: number): number;
 }
