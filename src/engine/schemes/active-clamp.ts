@@ -4,6 +4,7 @@ import { rippleAtA, switchDutyAt } from '../design/duty';
 import type { Design } from '../design/types';
 import { selectMosfet } from '../parts/select';
 import { chooseClampCap, hotRdsOhm } from './common';
+import { drainCapacitance, GROUNDED_SWITCH } from './netlist-common';
 import type { ResetSchemeModel } from './types';
 
 /**
@@ -165,6 +166,35 @@ export const activeClamp: ResetSchemeModel = {
   primaryOffA: (imA) => imA,
   ownFindings: () => [{ severity: 'info', code: 'volt-second-clamp', message: 'assumes a line feed-forward (volt-second) duty clamp; without it a high-line transient overstresses the switch and walks the core' }],
   resetWindingRatio: () => null,
+  netlist: {
+    switchStage: GROUNDED_SWITCH,
+    nodeCapacitance: drainCapacitance,
+    resetNetwork(p, n, gate2) {
+      const vc = p.duty / (1 - p.duty);
+      const cc = p.clampCapacitanceF ?? 1e-6;
+      // A lossless clamp never settles its slow Lm–Cc mode (real ones are damped by ESR and Rds(on)): a parallel R–C
+      // branch (Rd = √(Lm/Cc), Cd = 4·Cc) damps it without sitting in the path of the fast leakage current at turn-off.
+      const rd = Math.sqrt(p.lmH / cc);
+      const damping = (ref: string, ic: number): string[] => [`RDC cc cd ${n(rd)}`, `CDC cd ${ref} ${n(4 * cc)} IC=${n(ic)}`];
+      return p.activeClampVariant === 'high-side'
+        ? [
+          '* Active clamp, high-side: clamp switch S2 and Cc across the primary, driven in the off time; Cc with a damping R-C branch',
+          'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
+          `CC cc in ${n(cc)} IC=${n(p.vinV * vc)}`,
+          ...damping('in', p.vinV * vc),
+          gate2,
+        ]
+        : [
+          '* Active clamp, low-side: clamp switch S2 and Cc from the drain to ground, driven in the off time; Cc with a damping R-C branch',
+          'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
+          `CC cc 0 ${n(cc)} IC=${n(p.vinV / (1 - p.duty))}`,
+          ...damping('0', p.vinV / (1 - p.duty)),
+          gate2,
+        ];
+    },
+    magnetizingTerms: () => '',
+    measuresCoreVoltage: true,
+  },
   resetLossW(d, vinV) {
     if (!d.auxSwitch) return 0;
     const irms = auxRmsAt(d, vinV);

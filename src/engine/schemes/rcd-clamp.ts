@@ -5,6 +5,7 @@ import { switchDutyAt } from '../design/duty';
 import { setRectifierVoltages } from '../design/converter';
 import { magnetizingStartAt, peakOffStateV, ringCapacitanceF, settleMagnetizing } from '../design/stress';
 import { chooseClampCap, chooseClampDiode, vfOf } from './common';
+import { drainCapacitance, GROUNDED_SWITCH } from './netlist-common';
 import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
 
@@ -108,6 +109,18 @@ export const rcdClamp: ResetSchemeModel = {
   primaryOffA: (imA) => imA,
   ownFindings: () => [],
   resetWindingRatio: () => null,
+  netlist: {
+    switchStage: GROUNDED_SWITCH,
+    nodeCapacitance: drainCapacitance,
+    resetNetwork: (p, n) => [
+      `* RCD clamp across the primary; clamp voltage ${n(p.clampCapacitorV ?? 0)} V above the input`,
+      'DCL d cl DIDEAL',
+      `CCL cl in ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.clampCapacitorV ?? 0)}`,
+      `RCL cl in ${n(p.clampResistorOhm ?? 1e6)}`,
+    ],
+    magnetizingTerms: () => '',
+    measuresCoreVoltage: true,
+  },
   resetLossW(d, vinV, _duty, primaryPeakA) {
     const imOff = d.magnetizingSwingA + magnetizingStartAt(d, this, vinV);
     const p = rcdClampLossW(d.lmH, imOff, d.llkH, primaryPeakA, ringCapacitanceF(d, this), d.clampV, d.spec.fswHz);

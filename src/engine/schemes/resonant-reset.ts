@@ -3,6 +3,7 @@ import { E12, snapDownIn } from '../eseries';
 import { rippleAtA } from '../design/duty';
 import type { Design } from '../design/types';
 import { chooseClampCap, withMargin } from './common';
+import { GROUNDED_SWITCH } from './netlist-common';
 import { arcKnots } from './off-shape';
 import type { ResetSchemeModel } from './types';
 
@@ -131,6 +132,18 @@ export const resonantReset: ResetSchemeModel = {
   primaryOffA: (imA) => imA,
   ownFindings: () => [],
   resetWindingRatio: () => null,
+  netlist: {
+    switchStage: GROUNDED_SWITCH,
+    // Cr holds the switch's Co(er) and the winding capacitance already.
+    nodeCapacitance: () => [],
+    // The leakage hands its energy to Cr at turn-off and the Lm–Cr resonance starts from there (the model above).
+    resetNetwork: (p, n) => [
+      '* Resonant reset: total drain-node capacitance (switch, winding and added capacitor) resonates with Lm',
+      `CR d 0 ${n(p.resonantCapacitanceF ?? 1e-9)} IC=${n(p.vinV)}`,
+    ],
+    magnetizingTerms: () => '',
+    measuresCoreVoltage: true,
+  },
   resetLossW(d, vinV) {
     return 0.5 * d.addedCF * vinV * vinV * d.spec.fswHz;
   },

@@ -52,6 +52,18 @@ export const twoSwitch: ResetSchemeModel = {
   primaryOffA: (imA) => imA,
   ownFindings: () => [],
   resetWindingRatio: () => null,
+  netlist: {
+    // The high-side switch from the input to the primary's top (dt), the low-side one from the drain to ground.
+    switchStage: { lines: ['S1 in dt g1 0 SWI', 'DB1 dt in DIDEAL', 'S1B d 0 g1 0 SWI', 'DB1B 0 d DIDEAL'], top: 'dt' },
+    nodeCapacitance: (p, n, windingTop) => [
+      "* Node capacitance: each switch's Co(er), and the winding capacitance across the primary",
+      `CS1 in dt ${n(Math.max(p.switchCapacitanceF, 1e-12))}`, `CS2 d 0 ${n(Math.max(p.switchCapacitanceF, 1e-12))}`,
+      `CW ${windingTop} d ${n(p.windingCapacitanceF)}`,
+    ],
+    resetNetwork: () => ['* Two-switch clamp diodes return the magnetizing energy to the input bus', 'DA d in DIDEAL', 'DB 0 dt DIDEAL'],
+    magnetizingTerms: () => '',
+    measuresCoreVoltage: false,
+  },
   resetLossW(d, vinV, duty, primaryPeakA) {
     const tLeakS = (d.llkH * primaryPeakA) / vinV;
     return 2 * vfOf(d) * (d.magnetizingPeakA * duty / 2 + 0.5 * primaryPeakA * tLeakS * d.spec.fswHz);

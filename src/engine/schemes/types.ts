@@ -1,6 +1,7 @@
 import type { NormalisedSpec } from '../../schemas/spec';
 import type { Design } from '../design/types';
 import type { Finding } from '../finding';
+import type { SchemeNetlist } from './netlist-types';
 import type { SchemeId } from '../scheme-ids';
 
 /**
@@ -90,6 +91,8 @@ export interface ResetSchemeModel {
   ownFindings(d: Design): Finding[];
   /** Nr/Np of a reset winding where the scheme has one, else null (the result's resetTurnsRatio). */
   resetWindingRatio(d: Design): number | null;
+  /** The scheme's own elements of its SPICE netlist (switch stage, node capacitance, reset network). */
+  netlist: SchemeNetlist;
   /** Reset/clamp loss at vinV and load (W), excluding nothing the common terms already count. */
   resetLossW(d: Design, vinV: number, duty: number, primaryPeakA: number, primaryRmsA: number): number;
 }

@@ -1,3 +1,4 @@
+import { schemeModel } from '../../engine/registry';
 import type { NetlistPoint } from './operating-point';
 
 /** Context printed in the header (names only; no figures come from here). */
@@ -59,78 +60,6 @@ const leakageNote = {
   primary: 'leakage as a series inductor in the primary loop',
 } as const;
 
-function resetNetwork(p: NetlistPoint, n: (x: number) => string, gate2: string): string[] {
-  const vc = p.duty / (1 - p.duty);
-  const cc = p.clampCapacitanceF ?? 1e-6;
-  // A lossless clamp never settles its slow Lm–Cc mode (real ones are damped by ESR and Rds(on)): a parallel R–C branch
-  // (Rd = √(Lm/Cc), Cd = 4·Cc) damps it without sitting in the path of the fast leakage current at turn-off.
-  const rd = Math.sqrt(p.lmH / cc);
-  const damping = (node: string, ref: string, ic: number): string[] => [`RDC ${node} cd ${n(rd)}`, `CDC cd ${ref} ${n(4 * cc)} IC=${n(ic)}`];
-  switch (p.scheme) {
-    case 'tertiary-winding': {
-      const r = p.resetTurnsRatio ?? 1;
-      // Bifilar with the primary, the reset winding links the primary's leakage flux too: its own leakage r²·Llk, coupled
-      // to the primary's, takes the leakage current over at turn-off and returns that energy to the input with the
-      // magnetizing energy (the engine's small primary–reset share is not drawn). Their coupling is a hair below 1: with
-      // three perfectly coupled pairs ngspice's matrix turns singular whenever DR opens; the 0.002 % left uncoupled rings
-      // well under 1 % above the reset voltage.
-      return [
-        `* Tertiary (reset) winding Nr/Np = ${n(r)}, dot at ground, returning the magnetizing and leakage energy to the input through DR`,
-        ...(p.llkH > 0 ? [`LLKR 0 rl ${n(p.llkH * r * r)}`, 'K4 LLK LLKR 0.99999', `LR rl rk ${n(p.lmH * r * r)}`] : [`LR 0 rk ${n(p.lmH * r * r)}`]),
-        'K2 LP LR 1', 'K3 LS LR 1',
-        'DR rk in DIDEAL',
-      ];
-    }
-    case 'rcd-clamp':
-      return [
-        `* RCD clamp across the primary; design clamp voltage ${n(p.clampCapacitorV ?? 0)} V above the input`,
-        'DCL d cl DIDEAL',
-        `CCL cl in ${n(p.clampCapacitanceF ?? 1e-6)} IC=${n(p.clampCapacitorV ?? 0)}`,
-        `RCL cl in ${n(p.clampResistorOhm ?? 1e6)}`,
-      ];
-    case 'active-clamp':
-      return p.activeClampVariant === 'high-side'
-        ? [
-          '* Active clamp, high-side: clamp switch S2 and Cc across the primary, driven in the off time; Cc with a damping R-C branch',
-          'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
-          `CC cc in ${n(cc)} IC=${n(p.vinV * vc)}`,
-          ...damping('cc', 'in', p.vinV * vc),
-          gate2,
-        ]
-        : [
-          '* Active clamp, low-side: clamp switch S2 and Cc from the drain to ground, driven in the off time; Cc with a damping R-C branch',
-          'S2 d cc g2 0 SWI', 'DB2 d cc DIDEAL',
-          `CC cc 0 ${n(cc)} IC=${n(p.vinV / (1 - p.duty))}`,
-          ...damping('cc', '0', p.vinV / (1 - p.duty)),
-          gate2,
-        ];
-    case 'two-switch':
-      return ['* Two-switch clamp diodes return the magnetizing energy to the input bus', 'DA d in DIDEAL', 'DB 0 dt DIDEAL'];
-    case 'resonant-reset':
-      // The leakage hands its energy to Cr at turn-off and the Lm–Cr resonance starts from there (the engine's model).
-      return [
-        '* Resonant reset: total drain-node capacitance (switch, winding and added capacitor) resonates with Lm',
-        `CR d 0 ${n(p.resonantCapacitanceF ?? 1e-9)} IC=${n(p.vinV)}`,
-      ];
-  }
-}
-
-/**
- * Capacitance at the switch node(s): each switch's Co(er) (two in the two-switch forward) and the winding capacitance,
- * as the engine lumps them (design/stress.ts). The resonant reset's Cr already holds them.
- */
-function nodeCapacitance(p: NetlistPoint, n: (x: number) => string, windingTop: string): string[] {
-  if (p.scheme === 'resonant-reset') return [];
-  if (p.scheme === 'two-switch') {
-    return [
-      '* Node capacitance: each switch\'s Co(er), and the winding capacitance across the primary',
-      `CS1 in dt ${n(Math.max(p.switchCapacitanceF, 1e-12))}`, `CS2 d 0 ${n(Math.max(p.switchCapacitanceF, 1e-12))}`,
-      `CW ${windingTop} d ${n(p.windingCapacitanceF)}`,
-    ];
-  }
-  return ['* Drain-node capacitance: the switch\'s Co(er) and the winding capacitance', `CDN d 0 ${n(p.switchCapacitanceF + p.windingCapacitanceF)}`];
-}
-
 /**
  * Plain ngspice-compatible netlist of one scheme at one input voltage: ideal switches driven by
  * PULSE sources at the engine's duty and frequency, coupled inductors for the transformer (unity
@@ -142,13 +71,13 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
   const t = runTiming(p);
   const tr = t.periodS / 1000;
   const tOn = p.duty * t.periodS;
-  const twoSwitch = p.scheme === 'two-switch';
+  const model = schemeModel(p.scheme).netlist;
   // Leakage (the engine's Llk, all of it on the primary side as the engine takes it), which takes volt-seconds from every
   // on time. Where the reset network clamps the leakage energy (RCD, active clamp, two-switch) it sits in series with the
   // primary inside the clamp loop; in the resonant reset it rings with Cr, damped; the tertiary's bifilar reset winding
   // shares it and returns its energy (resetNetwork).
   const leakage = !(p.llkH > 0) ? 'none' : 'primary';
-  const top = leakage === 'primary' ? 'pa' : twoSwitch ? 'dt' : 'in';
+  const top = leakage === 'primary' ? 'pa' : model.switchStage.top;
   // The clamp switch is driven in the off time with a dead time at each edge, as a complementary drive has: the drain
   // swings through its transitions on the body diodes instead of both switches changing at one instant, which also keeps
   // the simulator from stepping through a singular moment.
@@ -178,15 +107,15 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     `VIN in 0 DC ${n(p.vinV)}`,
     `VG1 g1 0 PULSE(0 1 0 ${n(tr)} ${n(tr)} ${n(tOn - tr)} ${n(t.periodS)})`,
     '* Main switch(es) with body diodes',
-    ...(twoSwitch ? ['S1 in dt g1 0 SWI', 'DB1 dt in DIDEAL', 'S1B d 0 g1 0 SWI', 'DB1B 0 d DIDEAL'] : ['S1 d 0 g1 0 SWI', 'DB1 0 d DIDEAL']),
+    ...model.switchStage.lines,
     '* Transformer (dots on the first node)',
     `LP ${top} d ${n(p.lmH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`,
     `LS sa 0 ${n(p.lmH * p.turnsRatio * p.turnsRatio)} IC=${n(-ilMinA)}`,
     'K1 LP LS 1',
     ...(leakage === 'primary' ? [`* Leakage inductance Llk = ${n(p.llkH)} H in series with the primary`,
-      `LLK ${twoSwitch ? 'dt' : 'in'} pa ${n(p.llkH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`] : []),
-    ...nodeCapacitance(p, n, top),
-    ...resetNetwork(p, n, gate2),
+      `LLK ${model.switchStage.top} pa ${n(p.llkH)} IC=${n(p.magnetizingStartA + p.turnsRatio * ilMinA)}`] : []),
+    ...model.nodeCapacitance(p, n, top),
+    ...model.resetNetwork(p, n, gate2),
     '* Forward and freewheeling rectifiers, output filter (winding/layout drop as a series resistance), load',
     'D1 sa sw DRECT', 'D2 0 sw DRECT',
     `LOUT sw lx ${n(p.outputInductanceH)} IC=${n(ilMinA)}`,
@@ -201,10 +130,10 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
     `.meas tran il_min MIN i(VIL) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
     ".meas tran il_ripple PARAM='il_max-il_min'",
     '* Magnetizing current referred to the primary: the winding currents weighted by their turns',
-    `BIM im 0 V=i(LP)+${n(p.turnsRatio)}*i(LS)${p.scheme === 'tertiary-winding' ? `+${n(p.resetTurnsRatio ?? 1)}*i(LR)` : ''}`,
+    `BIM im 0 V=i(LP)+${n(p.turnsRatio)}*i(LS)${model.magnetizingTerms(p, n)}`,
     `.meas tran im_max MAX v(im) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
     `.meas tran im_min MIN v(im) FROM=${n(t.fromS)} TO=${n(t.stopS)}`,
-    ...(leakage === 'primary' && !twoSwitch
+    ...(leakage === 'primary' && model.measuresCoreVoltage
       ? ['* The drain less the drop across the leakage: the voltage the core resets at, Vin + V(Lm)',
         'BCORE vcore 0 V=v(in)+v(d)-v(pa)', `.meas tran vcore_pk MAX v(vcore) FROM=${n(t.fromS)} TO=${n(t.stopS)}`]
       : []),

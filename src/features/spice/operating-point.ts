@@ -1,48 +1,9 @@
 import { WINDING_CAPACITANCE_F, WINDING_DROP_SHARE } from '../../engine/assumptions';
 import { waveforms, type NormalisedSpec, type PartsLibrary, type SchemeResult } from '../../engine';
+import type { NetlistPoint, VinCase } from '../../engine/schemes/netlist-types';
 
-/** Which end of the input range (or the nominal input) a netlist is drawn at. */
-export type VinCase = 'min' | 'nom' | 'max';
-export const VIN_CASES: readonly VinCase[] = ['min', 'nom', 'max'];
-
-/**
- * Everything a netlist needs for one scheme at one input voltage, in SI units, taken from the
- * engine's result so that the simulator is checked against the very design the engine reports.
- */
-export interface NetlistPoint {
-  scheme: SchemeResult['scheme'];
-  label: string;
-  vinCase: VinCase;
-  vinV: number;
-  voutV: number;
-  ioutA: number;
-  fswHz: number;
-  /** Duty at this input, D = K/Vin (K = Vin·D, constant in regulation). */
-  duty: number;
-  turnsRatio: number;
-  resetTurnsRatio: number | null;
-  lmH: number;
-  /** Leakage inductance (engine: Llk = leakageRatio·Lm), used where the reset network absorbs its energy. */
-  llkH: number;
-  rectifierDropV: number;
-  windingDropV: number;
-  outputInductanceH: number;
-  outputCapacitanceF: number;
-  clampCapacitorV: number | null;
-  clampResistorOhm: number | null;
-  clampCapacitanceF: number | null;
-  resonantCapacitanceF: number | null;
-  activeClampVariant: NormalisedSpec['activeClampVariant'];
-  magnetizingPeakA: number;
-  /** Magnetizing current at the start of the on time at this input (the engine's waveform; offset − ΔIm/2 when bipolar). */
-  magnetizingStartA: number;
-  /** Co(er) of one main-switch position (parts in parallel together), 0 when the library has no such part. */
-  switchCapacitanceF: number;
-  /** Winding and layout capacitance the engine lumps at the drain node. */
-  windingCapacitanceF: number;
-  /** The engine's own figures at this input, for the header and the cross-check (switch stress: its rating basis). */
-  expected: { switchPeakV: number; switchStressV: number; voutV: number; inductorRippleA: number; magnetizingPeakA: number };
-}
+export type { NetlistPoint, VinCase } from '../../engine/schemes/netlist-types';
+export { VIN_CASES } from '../../engine/schemes/netlist-types';
 
 /** Input voltage of a case. */
 export function vinOf(spec: NormalisedSpec, vinCase: VinCase): number {
