@@ -18,6 +18,8 @@ export interface WavePoint {
 /** Idealised waveforms over two switching periods (piecewise-linear corners; resonant arcs sampled; shapes from each scheme's model). */
 export interface Waveforms {
   scheme: SchemeId;
+  /** Main switches in series (the two-switch forward's 2): `drainV` is then the voltage across each of them. */
+  seriesSwitches: number;
   vinV: number;
   periodS: number;
   drainV: WavePoint[];
@@ -50,7 +52,7 @@ export function waveformsOf(d: Design, vinV: number = d.spec.vinNomV): Waveforms
   const im0 = magnetizingStartAt(d, model, vinV);
   const imEnd = im0 + d.magnetizingSwingA;
   const shape = model.offShape(d, vinV, tOff, imEnd);
-  const w: Waveforms = { scheme: d.scheme, vinV, periodS: tS, drainV: [], primaryA: [], magnetizingA: [], secondaryV: [], inductorA: [] };
+  const w: Waveforms = { scheme: d.scheme, seriesSwitches: series, vinV, periodS: tS, drainV: [], primaryA: [], magnetizingA: [], secondaryV: [], inductorA: [] };
   // Secondary voltage: given during the on time (0 while shorted, n·V(Lm) after), else reflected from the drain.
   const sample = (t: number, vds: number, im: number, ip: number, il: number, vSec?: number): void => {
     w.drainV.push({ tS: t, value: vds });

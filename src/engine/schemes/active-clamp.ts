@@ -6,6 +6,7 @@ import { selectMosfet } from '../parts/select';
 import { chooseClampCap, hotRdsOhm } from './common';
 import { drainCapacitance, GROUNDED_SWITCH } from './netlist-common';
 import type { ResetSchemeModel } from './types';
+import { SCHEME_LABELS } from '../scheme-ids';
 
 /**
  * Equal-stress duty of the active clamp, Dmax = Vmax/(Vmax + Vmin) at Vmin, which makes
@@ -102,7 +103,7 @@ function clampCapacitanceF(d: Design, vinV: number): number {
  */
 export const activeClamp: ResetSchemeModel = {
   id: 'active-clamp',
-  label: 'Active clamp',
+  label: SCHEME_LABELS['active-clamp'],
   switchCount: 2,
   bipolarFlux: true,
   leakageClamped: true,

@@ -8,6 +8,7 @@ import { chooseClampCap, chooseClampDiode, vfOf } from './common';
 import { drainCapacitance, GROUNDED_SWITCH } from './netlist-common';
 import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
+import { SCHEME_LABELS } from '../scheme-ids';
 
 /** RCD clamp voltage needed at the design duty, with the 20 % margin, per volt of Vin,min: Vcl/Vin,min = 1.2·Dlim/(1 − Dlim) (derived by volt-second balance). */
 function clampRatio(dutyLimit: number): number {
@@ -34,7 +35,7 @@ const CLAMP_SETTLE_STEPS = 12;
  */
 export const rcdClamp: ResetSchemeModel = {
   id: 'rcd-clamp',
-  label: 'RCD clamp',
+  label: SCHEME_LABELS['rcd-clamp'],
   switchCount: 1,
   bipolarFlux: false,
   leakageClamped: true,

@@ -6,6 +6,7 @@ import { chooseClampCap, withMargin } from './common';
 import { GROUNDED_SWITCH } from './netlist-common';
 import { arcKnots } from './off-shape';
 import type { ResetSchemeModel } from './types';
+import { SCHEME_LABELS } from '../scheme-ids';
 
 /**
  * Reset-limited duty of resonant reset, Dmax = 1 − π·fs·√(Lm·Cr) (half a resonant period must
@@ -59,7 +60,7 @@ function peakAt(d: Design, vinV: number): number {
 /** Single-switch forward reset by the Lm–Cr resonance (Cr = Coss + winding C + an added capacitor). */
 export const resonantReset: ResetSchemeModel = {
   id: 'resonant-reset',
-  label: 'Resonant reset',
+  label: SCHEME_LABELS['resonant-reset'],
   switchCount: 1,
   bipolarFlux: true,
   // The leakage energy joins the resonance and returns to the input (resonantLeakageEnergyJ): no spike of its own.

@@ -3,6 +3,7 @@ import { chooseClampDiode, vfOf, withMargin } from './common';
 import { drainCapacitance, GROUNDED_SWITCH } from './netlist-common';
 import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
+import { SCHEME_LABELS } from '../scheme-ids';
 
 /**
  * Single-switch forward with a tertiary (reset) winding, Nr/Np = r.
@@ -11,7 +12,7 @@ import type { ResetSchemeModel } from './types';
  */
 export const tertiaryWinding: ResetSchemeModel = {
   id: 'tertiary-winding',
-  label: 'Tertiary winding',
+  label: SCHEME_LABELS['tertiary-winding'],
   switchCount: 1,
   bipolarFlux: false,
   leakageClamped: false,

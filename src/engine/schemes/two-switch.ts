@@ -2,6 +2,7 @@ import { RAIL_CLAMP_OVERSHOOT } from '../assumptions';
 import { chooseClampDiode, vfOf, withMargin } from './common';
 import { unipolarOffShape } from './off-shape';
 import type { ResetSchemeModel } from './types';
+import { SCHEME_LABELS } from '../scheme-ids';
 
 /**
  * Two-switch (double-ended) forward: each switch is clamped to the rail, Vds = Vin; reset through
@@ -10,7 +11,7 @@ import type { ResetSchemeModel } from './types';
  */
 export const twoSwitch: ResetSchemeModel = {
   id: 'two-switch',
-  label: 'Two-switch',
+  label: SCHEME_LABELS['two-switch'],
   switchCount: 2,
   bipolarFlux: false,
   leakageClamped: true,

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { SCHEME_IDS, SCHEME_LABELS, type SchemeId } from '../../engine/scheme-ids';
 import { $dirty, $saved } from '../../stores/saved';
 import { $overrides } from '../../stores/overrides';
+import { $evaluation } from '../../stores/evaluation';
 import { api } from '../compare/api';
 
 interface Props {
@@ -18,7 +19,10 @@ export default function AddToShortlist({ specId, drafts, canCreate }: Props) {
   const dirty = useStore($dirty);
   const saved = useStore($saved);
   const overrides = useStore($overrides);
-  const [scheme, setScheme] = useState<SchemeId>('two-switch');
+  // Preselect the scheme the live comparison ranks first (the one a team shortlists most often).
+  const ranked = useStore($evaluation);
+  const [picked, setScheme] = useState<SchemeId | null>(null);
+  const scheme: SchemeId = picked ?? ranked.comparison?.ranking[0] ?? SCHEME_IDS[0];
   const [target, setTarget] = useState(drafts[0]?.id ?? (canCreate ? NEW : ''));
   const [title, setTitle] = useState('');
   const [note, setNote] = useState('');

@@ -61,7 +61,7 @@ export function WaveformCard({ comparison, library }: { comparison: Comparison; 
         <p className="text-sm text-fail">The waveforms of {label} could not be drawn: {waves.message}</p>
       ) : (
         <div className="grid gap-x-6 gap-y-4 md:grid-cols-2">
-          {panel(scheme === 'two-switch' ? 'Voltage across each switch' : 'Main switch drain–source voltage', 'drain', 'Switch voltage over two periods')}
+          {panel(ok && ok.seriesSwitches > 1 ? 'Voltage across each switch' : 'Main switch drain–source voltage', 'drain', 'Switch voltage over two periods')}
           {panel('Primary and magnetizing current', 'currents', 'Primary and magnetizing current over two periods')}
           {panel('Secondary winding voltage', 'secondary', 'Secondary winding voltage over two periods')}
           {panel('Output inductor current', 'inductor', 'Output inductor current over two periods')}

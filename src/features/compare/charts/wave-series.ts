@@ -8,6 +8,8 @@ import type { LegendEntry, LineDataset, LineSeries, XY } from './types';
 /** The four waveform panels of one scheme at Vin,nom, full load; time in µs. */
 export interface WaveSeries {
   scheme: SchemeId;
+  /** Main switches in series: the drain trace is the voltage across each (from the engine's waveforms). */
+  seriesSwitches: number;
   vinV: number;
   periodUs: number;
   drain: LineSeries;
@@ -106,10 +108,11 @@ export function buildWaveSeries(comparison: Comparison, scheme: SchemeId, librar
     type: 'line', scheme: null, kind: 'limit', label: 'Vin', data: [{ x: 0, y: w.vinV }, { x: 2 * periodUs, y: w.vinV }],
     borderColor: NEUTRAL, borderDash: REFERENCE_DASH, borderWidth: 1.5, pointRadius: 0, pointHitRadius: 0, tension: 0, order: 2,
   };
-  const drainLabel = scheme === 'two-switch' ? 'v_DS of each switch' : 'Main switch v_DS';
+  const drainLabel = w.seriesSwitches > 1 ? 'v_DS of each switch' : 'Main switch v_DS';
   const magnetizing: LineDataset = { ...trace(scheme, 'Magnetizing current', toXY(w.magnetizingA), INK, [5, 3], 'none'), yAxisID: 'y2' };
   return {
     scheme,
+    seriesSwitches: w.seriesSwitches,
     vinV: w.vinV,
     periodUs,
     drain: series([own(drainLabel, w.drainV)], [vinLine], [entry(drainLabel, style.color, [], style.marker), entry(`Input voltage ${Number(w.vinV.toPrecision(3))} V`, NEUTRAL, REFERENCE_DASH, 'none', true)], periodUs),

@@ -7,12 +7,8 @@ import { memo, type JSX } from 'react';
 import type { SchemeId } from '../../../engine/scheme-ids';
 import { SCHEME_LABELS } from '../../../engine/scheme-ids';
 import { SCHEME_STYLES } from '../../../lib/scheme-style';
-import ActiveClamp from './drawings/ActiveClamp';
-import { H, W, type DrawingProps } from './drawings/common';
-import Rcd from './drawings/Rcd';
-import Resonant from './drawings/Resonant';
-import Tertiary from './drawings/Tertiary';
-import TwoSwitch from './drawings/TwoSwitch';
+import { H, W } from './drawings/common';
+import { SCHEME_DRAWINGS, type Variant } from './registry';
 import { FONT, HL_W, INK } from './symbols';
 
 export interface SchemeSchematicProps {
@@ -22,52 +18,18 @@ export interface SchemeSchematicProps {
   className?: string;
 }
 
-type Variant = 'high-side' | 'low-side';
-
 /** One-sentence description of the drawing (also the accessible name). */
 export function describeScheme(scheme: SchemeId, variant: Variant, rectifier: 'diode' | 'synchronous'): string {
   const rect = rectifier === 'synchronous' ? 'synchronous rectifiers SR1 and SR2' : 'diode rectifiers D1 and D2';
-  const lead = `${SCHEME_LABELS[scheme]} forward with ${rect}`;
-  switch (scheme) {
-    case 'tertiary-winding':
-      return `${lead}: low-side switch Q1; reset winding Nr (opposite dot) and reset diode Dr return magnetizing energy to the input (highlighted).`;
-    case 'rcd-clamp':
-      return `${lead}: low-side switch Q1; clamp diode Dc charges Cc in parallel with Rc from the drain to the input rail, and Rc dissipates the magnetizing energy (highlighted).`;
-    case 'active-clamp':
-      return variant === 'high-side'
-        ? `${lead}: low-side switch Q1; high-side clamp of capacitor Cc in series with N-channel switch Q2 from the drain to the input rail recycles the magnetizing energy (highlighted).`
-        : `${lead}: low-side switch Q1; low-side clamp of capacitor Cc in series with P-channel switch Q2 from the drain to ground recycles the magnetizing energy (highlighted).`;
-    case 'two-switch':
-      return `${lead}: Q1 high-side and Q2 low-side; clamp diodes D3 and D4 return magnetizing energy to the input (highlighted).`;
-    case 'resonant-reset':
-      return `${lead}: low-side switch Q1 with capacitor Cr (including Coss) across drain and source; the magnetizing inductance Lm rings with Cr to reset the core (highlighted).`;
-  }
-}
-
-function Drawing({ scheme, variant, ...p }: DrawingProps & { scheme: SchemeId; variant: Variant }) {
-  switch (scheme) {
-    case 'tertiary-winding':
-      return <Tertiary {...p} />;
-    case 'rcd-clamp':
-      return <Rcd {...p} />;
-    case 'active-clamp':
-      return <ActiveClamp {...p} variant={variant} />;
-    case 'two-switch':
-      return <TwoSwitch {...p} />;
-    case 'resonant-reset':
-      return <Resonant {...p} />;
-  }
+  return `${SCHEME_LABELS[scheme]} forward with ${rect}: ${SCHEME_DRAWINGS[scheme].describe(variant)}`;
 }
 
 function SchemeSchematic({ scheme, activeClampVariant = 'high-side', rectifier = 'diode', className }: SchemeSchematicProps): JSX.Element {
   const { color } = SCHEME_STYLES[scheme];
   const description = describeScheme(scheme, activeClampVariant, rectifier);
-  const caption =
-    scheme === 'active-clamp'
-      ? activeClampVariant === 'high-side'
-        ? 'high-side clamp, N-channel Q2'
-        : 'low-side clamp, P-channel Q2'
-      : null;
+  const drawing = SCHEME_DRAWINGS[scheme];
+  const Art = drawing.default;
+  const caption = drawing.caption(activeClampVariant);
   const legendY = H - 8;
   return (
     <svg
@@ -80,7 +42,7 @@ function SchemeSchematic({ scheme, activeClampVariant = 'high-side', rectifier =
       style={{ display: 'block', height: 'auto' }}
     >
       <title>{`${SCHEME_LABELS[scheme]} reset, forward converter power stage`}</title>
-      <Drawing scheme={scheme} variant={activeClampVariant} color={color} rectifier={rectifier} />
+      <Art variant={activeClampVariant} color={color} rectifier={rectifier} />
       <g fontFamily={FONT} fontSize={9}>
         <path d={`M8 ${legendY - 3} H26`} stroke={color} strokeWidth={HL_W} strokeLinecap="round" />
         <text x={31} y={legendY} fill={color} fontWeight={600}>

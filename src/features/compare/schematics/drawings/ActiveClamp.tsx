@@ -41,3 +41,11 @@ export default function ActiveClamp({ color, rectifier, variant }: DrawingProps 
     </g>
   );
 }
+
+/** What the drawing shows, after "<scheme> forward with <rectifiers>: " (its accessible name). */
+export const describe = (variant: 'high-side' | 'low-side'): string => (variant === 'high-side'
+  ? 'low-side switch Q1; high-side clamp of capacitor Cc in series with N-channel switch Q2 from the drain to the input rail recycles the magnetizing energy (highlighted).'
+  : 'low-side switch Q1; low-side clamp of capacitor Cc in series with P-channel switch Q2 from the drain to ground recycles the magnetizing energy (highlighted).');
+
+/** The clamp's variant under the drawing. */
+export const caption = (variant: 'high-side' | 'low-side'): string | null => (variant === 'high-side' ? 'high-side clamp, N-channel Q2' : 'low-side clamp, P-channel Q2');

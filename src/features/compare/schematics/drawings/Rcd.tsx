@@ -33,3 +33,9 @@ export default function Rcd({ color, rectifier }: DrawingProps) {
     </g>
   );
 }
+
+/** What the drawing shows, after "<scheme> forward with <rectifiers>: " (its accessible name). */
+export const describe = (): string => 'low-side switch Q1; clamp diode Dc charges Cc in parallel with Rc from the drain to the input rail, and Rc dissipates the magnetizing energy (highlighted).';
+
+/** No caption under this drawing. */
+export const caption = (): string | null => null;

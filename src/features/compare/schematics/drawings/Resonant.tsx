@@ -22,3 +22,9 @@ export default function Resonant({ color, rectifier }: DrawingProps) {
     </g>
   );
 }
+
+/** What the drawing shows, after "<scheme> forward with <rectifiers>: " (its accessible name). */
+export const describe = (): string => 'low-side switch Q1 with capacitor Cr (including Coss) across drain and source; the magnetizing inductance Lm rings with Cr to reset the core (highlighted).';
+
+/** No caption under this drawing. */
+export const caption = (): string | null => null;

@@ -34,3 +34,9 @@ export default function Tertiary({ color, rectifier }: DrawingProps) {
     </g>
   );
 }
+
+/** What the drawing shows, after "<scheme> forward with <rectifiers>: " (its accessible name). */
+export const describe = (): string => 'low-side switch Q1; reset winding Nr (opposite dot) and reset diode Dr return magnetizing energy to the input (highlighted).';
+
+/** No caption under this drawing. */
+export const caption = (): string | null => null;

@@ -33,3 +33,9 @@ export default function TwoSwitch({ color, rectifier }: DrawingProps) {
     </g>
   );
 }
+
+/** What the drawing shows, after "<scheme> forward with <rectifiers>: " (its accessible name). */
+export const describe = (): string => 'Q1 high-side and Q2 low-side; clamp diodes D3 and D4 return magnetizing energy to the input (highlighted).';
+
+/** No caption under this drawing. */
+export const caption = (): string | null => null;
