@@ -1,5 +1,6 @@
 import type { Comparison, SchemeResult } from '../../engine';
 import type { SchemeId } from '../../engine/scheme-ids';
+import { isHazardous } from '../../lib/safety';
 import type { BriefDraft } from '../../schemas/briefs';
 import { verdictOf, type Verdict } from '../compare/figures';
 import type { BriefContent, BriefCost, BriefRecommendation } from './content';
@@ -81,7 +82,7 @@ export function composeBrief(comparison: Comparison, draft: BriefDraft, meta: Br
     engineVersion: comparison.engineVersion,
     partsLibrary: comparison.partsLibrary,
     demo: meta.demo || comparison.partsLibrary.demo,
-    hazardous: input.vinMaxV > 60,
+    hazardous: isHazardous(input.vinMaxV),
     requirements: requirementLines(input, comparison.partsLibrary.currency),
     verdicts,
     counts,

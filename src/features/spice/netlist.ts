@@ -1,4 +1,5 @@
 import { schemeModel } from '../../engine/registry';
+import { isHazardous } from '../../lib/safety';
 import type { NetlistPoint } from './operating-point';
 
 /** Context printed in the header (names only; no figures come from here). */
@@ -87,8 +88,8 @@ export function buildNetlist(p: NetlistPoint, ctx: NetlistContext): string {
   // Start at the beginning of an on time, near the steady state: inductor at its valley, D1 carrying it, and the
   // magnetizing current at its start value (flux linkage consistent across the coupled windings, so no start-up kick).
   const ilMinA = p.ioutA - p.expected.inductorRippleA / 2;
-  // Hazardous where the input or the switch node exceeds 60 V DC.
-  const safety = Math.max(p.vinV, p.expected.switchPeakV) > 60 ? ['* CAUTION: hazardous voltage. Isolation and creepage/clearance per the applicable safety standard (e.g. IEC 62368-1);',
+  // Hazardous where the input or the switch node exceeds the safety extra-low voltage.
+  const safety = isHazardous(Math.max(p.vinV, p.expected.switchPeakV)) ? ['* CAUTION: hazardous voltage. Isolation and creepage/clearance per the applicable safety standard (e.g. IEC 62368-1);',
     '* defer to local codes and qualified engineers.'] : [];
   const lines = [
     `* Resetwise SPICE netlist - ${p.label} forward converter, ${ctx.specName}`,

@@ -1,6 +1,7 @@
 import type { Db } from '../../db/client';
 import { getSpec, listSpecSummaries } from '../../db/queries/specs';
 import { parseSpecInput, type NormalisedSpec, type PartsLibrary } from '../../engine';
+import { isHazardous } from '../../lib/safety';
 import { currentLibrary } from '../parts/library.server';
 import { formatSi } from '../../lib/si';
 
@@ -34,7 +35,7 @@ export async function sweepPickerRows(db: Db): Promise<{ id: string; name: strin
     return {
       id: s.id, name: s.name, customer: s.customer,
       summary: r ? `${formatSi(r.vinMinV, 'V')}–${formatSi(r.vinMaxV, 'V')} → ${formatSi(r.voutV, 'V')}, ${formatSi(r.voutV * r.ioutA, 'W')}, ${formatSi(r.fswHz, 'Hz')}` : 'requirements need fixing on Compare',
-      hazardous: r ? r.vinMaxV > 60 : false,
+      hazardous: r ? isHazardous(r.vinMaxV) : false,
     };
   });
 }
