@@ -35,10 +35,6 @@ export const CAPABILITIES = {
 } as const satisfies Record<string, readonly Role[]>;
 export type Capability = keyof typeof CAPABILITIES;
 
-export function isRole(value: unknown): value is Role {
-  return typeof value === 'string' && (ROLES as readonly string[]).includes(value);
-}
-
 export function can(role: Role, capability: Capability): boolean {
   return (CAPABILITIES[capability] as readonly Role[]).includes(role);
 }

@@ -1,4 +1,4 @@
-import { and, desc, eq, gt, isNull, max, sql } from 'drizzle-orm';
+import { and, desc, eq, isNull, max, sql } from 'drizzle-orm';
 import type { Db } from '../client';
 import { newId } from '../ids';
 import { briefs, briefShares, briefShareViews, briefVersions, candidates, shortlists, specs, users, type Brief, type BriefShare, type BriefVersion } from '../schema';
@@ -221,15 +221,6 @@ export async function logShareView(db: Db, shareId: string, address: string, use
   await db.insert(briefShareViews).values({ shareId, address: address.slice(0, 100), userAgent: userAgent.slice(0, 400) });
 }
 
-/** Active links of a brief (not revoked, not expired at `now`). */
-export async function countActiveShares(db: Db, briefId: string, now: Date = new Date()): Promise<number> {
-  const [row] = await db
-    .select({ n: sql<number>`count(*)::int` })
-    .from(briefShares)
-    .innerJoin(briefVersions, eq(briefVersions.id, briefShares.briefVersionId))
-    .where(and(eq(briefVersions.briefId, briefId), isNull(briefShares.revokedAt), gt(briefShares.expiresAt, now)));
-  return Number(row?.n ?? 0);
-}
 
 /** Decided shortlists (id, title, spec) a brief can start from. */
 export async function listDecidedShortlists(db: Db): Promise<{ id: string; title: string; specId: string; scheme: string | null }[]> {

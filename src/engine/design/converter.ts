@@ -18,11 +18,6 @@ export function turnsRatioFor(voutV: number, dropsV: number, dutyLimit: number, 
   return (voutV + dropsV) / (dutyLimit * vinMinV);
 }
 
-/** Duty at an input voltage: D = (Vout + drops)/(n·Vin) (same balance). */
-export function dutyAt(voutV: number, dropsV: number, turnsRatio: number, vinV: number): number {
-  return (voutV + dropsV) / (turnsRatio * vinV);
-}
-
 function rectifierDrop(d: Design): number {
   if (d.rectSr) return (d.spec.ioutA * d.rectSr.rdsOnOhm * RDS_HOT_FACTOR) / d.rectQty;
   return d.rectDiode ? d.rectDiode.vfV : 0.5;

@@ -149,14 +149,3 @@ export function pricesAt(index: LibraryIndex, annualVolume: number): PriceTable 
   index.lastPrices = table;
   return table;
 }
-
-/** First index in an ascending list whose key is ≥ `min` (binary search); `list.length` if none. */
-export function lowerBound<T>(list: readonly T[], min: number, key: (item: T) => number): number {
-  let lo = 0;
-  let hi = list.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (key(list[mid]!) < min) lo = mid + 1; else hi = mid;
-  }
-  return lo;
-}
