@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { demoPartsLibrary, evaluate, sweepVin, waveforms, type Comparison } from '../../src/engine/index';
 import { SCHEME_STYLES } from '../../src/lib/scheme-style';
-import { formatDuty, formatMoney, formatVolts, formatWatts } from '../../src/features/compare/charts/format';
+import { formatDuty, formatMoney, formatVolts, formatWatts } from '../../src/lib/format';
 import { stackColours } from '../../src/features/compare/charts/palette';
 import { buildCostStacks, buildLossStacks, costGroupOf, LOSS_CATEGORIES } from '../../src/features/compare/charts/stacks';
 import { buildDutySeries, buildStressSeries, buildSweeps, markerRadii, markerSlot, SWEEP_POINTS } from '../../src/features/compare/charts/sweep-series';
@@ -199,10 +199,14 @@ describe('helpers', () => {
 
   test('number formats carry units and the agreed precision', () => {
     expect(formatVolts(45.6123)).toBe('45.6 V');
-    expect(formatVolts(1073.2)).toBe('1.07 kV');
+    // One voltage format on cards and charts alike (issue 18: a card said "1073 V" where the chart said "1.07 kV").
+    expect(formatVolts(1073.2)).toBe('1073 V');
+    expect(formatVolts(12_400)).toBe('12.4 kV');
     expect(formatDuty(0.375)).toBe('37.5 %');
     expect(formatWatts(4.16589)).toBe('4.17 W');
     expect(formatMoney(4.702, 'EUR')).toBe('4.70 EUR');
     expect(formatMoney(0.713, 'EUR', 3)).toBe('0.713 EUR');
+    // One money format for Compare, briefs and mail: thousands grouped.
+    expect(formatMoney(12345.6, 'EUR')).toBe('12,345.60 EUR');
   });
 });

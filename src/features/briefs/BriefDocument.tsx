@@ -1,7 +1,7 @@
 import SafetyCautionText from '../../components/SafetyCautionText';
 import { VERDICT_LABELS, type Verdict } from '../compare/figures';
 import type { BriefContent, BriefLine } from './content';
-import { formatCount, formatMoney } from './lines';
+import { formatCount, formatMoney } from '../../lib/format';
 import { COST_NOTICE, ESTIMATE_NOTICE } from './notices';
 import StressChart from './StressChart';
 

@@ -1,17 +1,8 @@
 import type { Comparison, NormalisedSpec, SchemeResult } from '../../engine';
-import { formatPercent, formatSi, formatSiRange } from '../../lib/si';
+import { formatCount, formatMoney, formatPercent, formatSi, formatSiRange } from '../../lib/format';
 import type { BriefLine } from './content';
 import { plainReason } from './reasons';
 
-/** Money with two decimals and the currency code: 5.2 → "5.20 EUR". */
-export function formatMoney(amount: number, currency: string): string {
-  return `${amount.toFixed(2)} ${currency}`;
-}
-
-/** Whole numbers with thousands separators: 20000 → "20,000". */
-export function formatCount(n: number): string {
-  return Math.round(n).toLocaleString('en-US');
-}
 
 /** The requirement set in the customer's terms, with units ("36–75 V, nominal 48 V"). */
 export function requirementLines(s: NormalisedSpec, currency: string): BriefLine[] {

@@ -1,6 +1,6 @@
 import { VERDICT_LABELS } from '../compare/figures';
 import type { BriefContent } from './content';
-import { formatCount, formatMoney } from './lines';
+import { formatCount, formatMoney } from '../../lib/format';
 import { ESTIMATE_NOTICE, SAFETY_TEXT } from './notices';
 
 export interface BriefMailInput {

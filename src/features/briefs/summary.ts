@@ -1,7 +1,7 @@
 import type { NormalisedSpec } from '../../engine';
 import { formatSi, formatSiRange } from '../../lib/si';
 import type { BriefContent } from './content';
-import { formatCount, formatMoney } from './lines';
+import { formatCount, formatMoney } from '../../lib/format';
 
 /** "Two-switch" → "two-switch"; acronyms such as "RCD clamp" stay as they are. */
 const inSentence = (label: string): string => (/^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label);

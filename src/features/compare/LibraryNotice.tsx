@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { $dirty, $saved, saveSpec } from '../../stores/saved';
 import { api } from './api';
 import { compareInitial, ensureLoaded, type StoredResult } from './init';
+import { formatMoney } from '../../lib/format';
 
 type Row = StoredResult['results'][number];
 
@@ -11,7 +12,7 @@ interface FreshReply {
   comparison: { results: { scheme: string; label: string; feasible: boolean; bomCost: number; efficiency: number; details?: { mainSwitchId?: string | null } }[] };
 }
 
-const money = (value: number, currency: string): string => (Number.isFinite(value) ? `${value.toFixed(2)} ${currency}` : '—');
+const money = (value: number, currency: string): string => (Number.isFinite(value) ? formatMoney(value, currency) : '—');
 const pct = (value: number): string => (Number.isFinite(value) ? `${(value * 100).toFixed(1)} %` : '—');
 
 /**

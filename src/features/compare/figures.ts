@@ -1,5 +1,5 @@
 import type { SchemeResult } from '../../engine';
-import { formatPercent, formatSi, formatVolts } from '../../lib/si';
+import { formatMoney, formatPercent, formatSi, formatVolts } from '../../lib/format';
 
 export interface Figure {
   label: string;
@@ -45,7 +45,7 @@ export const FIGURES: Figure[] = [
   { label: 'Total losses', value: (r) => v(r.lossesW.total, 'W') },
   { label: 'Efficiency', traceKey: 'efficiency', value: (r) => formatPercent(r.efficiency, 3) },
   { label: 'Part count', value: (r) => `${r.partCount}` },
-  { label: 'BOM cost', traceKey: 'bomCost', value: (r) => `${r.bomCost.toFixed(2)} ${r.currency}` },
+  { label: 'BOM cost', traceKey: 'bomCost', value: (r) => formatMoney(r.bomCost, r.currency) },
 ];
 
 export type Verdict = 'feasible' | 'marginal' | 'not-feasible';

@@ -9,6 +9,7 @@ import { nearestInCloud, newCloud, paintCloud, rgbOf, type CloudLayer, type Pixe
 import type { SweepResult } from './pool';
 import { pointAt, type DesignPoint } from './points';
 import { F, STRIDE } from './run';
+import { formatMoney } from '../../lib/format';
 
 interface XY { x: number; y: number; i: number }
 type Sc = ChartType<'scatter', XY[]>;
@@ -265,7 +266,7 @@ function SweepChart({ result, currency, onPick, onDrawn, onCloud, notice }: Prop
           </>
         )}
       </div>
-      <p className="sr-only" aria-live="polite">{p ? `${SCHEME_LABELS[p.scheme]}, ${formatSi(p.fswHz, 'Hz')}, BOM ${p.cost.toFixed(2)} ${currency}, loss ${formatSi(p.lossW, 'W')}${onFront ? `, on the ${onFront}` : ''}` : ''}</p>
+      <p className="sr-only" aria-live="polite">{p ? `${SCHEME_LABELS[p.scheme]}, ${formatSi(p.fswHz, 'Hz')}, BOM ${formatMoney(p.cost, currency)}, loss ${formatSi(p.lossW, 'W')}${onFront ? `, on the ${onFront}` : ''}` : ''}</p>
     </div>
   );
 }

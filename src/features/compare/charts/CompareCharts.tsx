@@ -3,7 +3,7 @@ import { useMemo, useRef } from 'react';
 import { Bar } from 'react-chartjs-2';
 import type { Comparison, PartsLibrary } from '../../../engine/index';
 import { ChartCard } from './ChartCard';
-import { formatDuty, formatMoney, formatVolts, formatWatts } from './format';
+import { formatDuty, formatMoney, formatVolts, formatWatts } from '../../../lib/format';
 import { LineChartBox } from './LineChartBox';
 import { stackedBarOptions, stackTotalsPlugin, type LineAxes } from './options';
 import { buildCostStacks, buildLossStacks } from './stacks';

@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { Comparison, PartsLibrary, SchemeId } from '../../../engine/index';
 import { ChartCard } from './ChartCard';
-import { formatAmps, formatMicroseconds, formatVolts } from './format';
+import { formatAmps, formatMicroseconds, formatVolts } from '../../../lib/format';
 import { LineChartBox } from './LineChartBox';
 import type { LineAxes } from './options';
 import { SchemeSelector } from './SchemeSelector';

@@ -1,6 +1,6 @@
 import { sweepVin, type Comparison, type PartsLibrary, type SchemeResult, type VinSweepPoint } from '../../../engine/index';
 import { SCHEME_STYLES } from '../../../lib/scheme-style';
-import { formatDuty, formatVolts } from './format';
+import { formatDuty, formatVolts } from '../../../lib/format';
 import { markerDataset } from './markers';
 import type { LegendEntry, LineDataset, LineSeries, XY } from './types';
 
