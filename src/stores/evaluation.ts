@@ -2,7 +2,7 @@ import { computed } from 'nanostores';
 import { evaluateNormalised, type Comparison } from '../engine';
 import { parseSpecInput } from '../schemas/spec';
 import { parseQuantity } from '../lib/units';
-import { CHOICE_FIELDS, NUMERIC_FIELDS } from '../features/compare/fields';
+import { CHOICE_FIELDS, NUMERIC_FIELDS } from '../lib/spec-fields';
 import { $draftExtras, $draftFields } from './spec-draft';
 import { $overrides } from './overrides';
 import { $weights } from './weights';

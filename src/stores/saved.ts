@@ -1,10 +1,10 @@
 import { atom, computed } from 'nanostores';
-import { api, type SpecPayload } from '../features/compare/api';
+import { api, type SpecPayload } from '../lib/api-client';
 import { $draftFields, $draftMeta, loadDraft } from './spec-draft';
 import { $evaluation } from './evaluation';
 import { $weights, loadWeights } from './weights';
 import { $overrides, loadOverrides } from './overrides';
-import { withSweepHandoff } from '../features/sweep/handoff';
+import { withSweepHandoff } from './sweep-handoff';
 
 export type SaveStatus = 'idle' | 'saving' | 'saved' | 'conflict' | 'error';
 

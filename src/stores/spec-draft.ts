@@ -1,5 +1,5 @@
 import { atom, map } from 'nanostores';
-import { CHOICE_FIELDS, NUMERIC_FIELDS, fieldText, type FieldKey } from '../features/compare/fields';
+import { CHOICE_FIELDS, NUMERIC_FIELDS, fieldText, type FieldKey } from '../lib/spec-fields';
 import { markEdit } from '../lib/perf';
 
 /** What the user typed in each requirement field (text, parsed by $evaluation). */

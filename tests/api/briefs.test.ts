@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluate, type Comparison } from '../../src/engine';
 import { demoSpecs } from '../../src/demo/specs';
-import { verdictOf } from '../../src/features/compare/figures';
+import { verdictOf } from '../../src/lib/verdict';
 import { signIn, startServer, type RunningServer } from '../helpers/server';
 
 let server: RunningServer;

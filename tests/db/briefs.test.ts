@@ -7,7 +7,7 @@ import { loadBrief, sameContent } from '../../src/features/briefs/service.server
 import { hashShareToken, newShareToken, shareExpiry } from '../../src/features/briefs/share.server';
 import { briefMail } from '../../src/features/briefs/mail';
 import { briefDraftSchema } from '../../src/schemas/briefs';
-import { verdictOf } from '../../src/features/compare/figures';
+import { verdictOf } from '../../src/lib/verdict';
 import { createMailer } from '../../src/lib/server/mail';
 
 const DAY_MS = 86_400_000;

@@ -1,7 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { demoPartsLibrary, evaluateLean, parseSpecInput } from '../../src/engine';
-import { decodeOverrides, encodeOverrides, handoffHref, readHandoff } from '../../src/features/sweep/handoff';
+import { decodeOverrides, encodeOverrides, handoffHref, readHandoff } from '../../src/stores/sweep-handoff';
 import { DEFAULT_SETTINGS, frequencies, ownPlan, planSweep, settingsProblems, type SweepSettings } from '../../src/features/sweep/plan';
 import { overrideOf, pointAt } from '../../src/features/sweep/points';
 import { drawCloud, nearestInCloud, newCloud, paintCloud, rgbOf } from '../../src/features/sweep/cloud';

@@ -1,5 +1,5 @@
 import SafetyCautionText from '../../components/SafetyCautionText';
-import { VERDICT_LABELS, type Verdict } from '../compare/figures';
+import { VERDICT_LABELS, type Verdict } from '../../lib/verdict';
 import type { BriefContent, BriefLine } from './content';
 import { formatCount, formatMoney } from '../../lib/format';
 import { COST_NOTICE, ESTIMATE_NOTICE } from './notices';

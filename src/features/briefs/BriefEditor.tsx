@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { VERDICT_LABELS } from '../compare/figures';
+import { VERDICT_LABELS } from '../../lib/verdict';
 import type { BriefVerdict } from './content';
 
 export interface EditorForm {

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 import type { BriefJson, BriefVersionJson } from './brief-json';
 import BriefDocument from './BriefDocument';
 import BriefEditor, { type EditorForm } from './BriefEditor';

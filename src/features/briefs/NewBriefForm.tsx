@@ -1,5 +1,5 @@
 import { useId, useState } from 'react';
-import { api, type ApiProblem } from '../compare/api';
+import { api, type ApiProblem } from '../../lib/api-client';
 
 export interface SpecOption {
   id: string;

@@ -1,5 +1,5 @@
 import { SCHEME_STYLES } from '../../lib/scheme-style';
-import { VERDICT_LABELS } from '../compare/figures';
+import { VERDICT_LABELS } from '../../lib/verdict';
 import type { BriefChartBar } from './content';
 
 const W = 640;

@@ -2,7 +2,7 @@ import type { Comparison, SchemeResult } from '../../engine';
 import type { SchemeId } from '../../engine/scheme-ids';
 import { isHazardous } from '../../lib/safety';
 import type { BriefDraft } from '../../schemas/briefs';
-import { verdictOf, type Verdict } from '../compare/figures';
+import { verdictOf, type Verdict } from '../../lib/verdict';
 import type { BriefContent, BriefCost, BriefRecommendation } from './content';
 import { assumptionLines, keyFigures, requirementLines, riskLines } from './lines';
 import { verdictReasons } from './reasons';

@@ -1,4 +1,4 @@
-import { VERDICT_LABELS } from '../compare/figures';
+import { VERDICT_LABELS } from '../../lib/verdict';
 import type { BriefContent } from './content';
 import { formatCount, formatMoney } from '../../lib/format';
 import { ESTIMATE_NOTICE, SAFETY_TEXT } from './notices';

@@ -1,7 +1,7 @@
 import { useStore } from '@nanostores/react';
 import { useState } from 'react';
 import { $dirty, $saved, saveSpec } from '../../stores/saved';
-import { api } from './api';
+import { api } from '../../lib/api-client';
 import { compareInitial, ensureLoaded, type StoredResult } from './init';
 import { formatMoney } from '../../lib/format';
 

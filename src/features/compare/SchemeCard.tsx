@@ -5,7 +5,8 @@ import type { SchemeResult, TraceEntry } from '../../engine';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { formatSi } from '../../lib/si';
 import SchemeSchematic from './schematics/SchemeSchematic';
-import { FIGURES, VERDICT_LABELS, verdictOf } from './figures';
+import { FIGURES } from './figures';
+import { VERDICT_LABELS, verdictOf } from '../../lib/verdict';
 
 interface Props {
   result: SchemeResult;

@@ -3,7 +3,7 @@ import { memo, useId } from 'react';
 import { $draftFields, $draftMeta, setDraftField, setDraftMeta } from '../../stores/spec-draft';
 import { $evaluation } from '../../stores/evaluation';
 import { parseQuantity } from '../../lib/units';
-import { CHOICE_FIELDS, NUMERIC_FIELDS, fieldText, type NumericField } from './fields';
+import { CHOICE_FIELDS, NUMERIC_FIELDS, fieldText, type NumericField } from '../../lib/spec-fields';
 import { ensureLoaded } from './init';
 
 interface Props {

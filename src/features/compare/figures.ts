@@ -47,13 +47,3 @@ export const FIGURES: Figure[] = [
   { label: 'Part count', value: (r) => `${r.partCount}` },
   { label: 'BOM cost', traceKey: 'bomCost', value: (r) => formatMoney(r.bomCost, r.currency) },
 ];
-
-export type Verdict = 'feasible' | 'marginal' | 'not-feasible';
-
-/** Feasible with no warning; marginal when something is near a limit; not feasible on any fail. */
-export function verdictOf(result: SchemeResult): Verdict {
-  if (!result.feasible) return 'not-feasible';
-  return result.findings.some((f) => f.severity === 'warn') ? 'marginal' : 'feasible';
-}
-
-export const VERDICT_LABELS: Record<Verdict, string> = { feasible: 'Feasible', marginal: 'Marginal', 'not-feasible': 'Not feasible' };

@@ -1,7 +1,7 @@
 import type { PartsLibrary } from '../../engine';
 import { $saved, loadSpec } from '../../stores/saved';
 import { loadLibrary } from '../../stores/library';
-import type { SpecPayload } from './api';
+import type { SpecPayload } from '../../lib/api-client';
 
 /** What the server stored for a saved set, to tell when the parts library moved on since. */
 export interface StoredResult {

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 import { MAX_TIERS, PART_STATUSES, STATUS_LABELS, type CategoryInfo } from './categories';
 import { parseSiValue, SMALL_UNITS, valueText } from './si-input';
 

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import type { PartsLibrary } from '../../engine/parts/types';
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 import { CATEGORIES, STATUS_LABELS, type CategoryInfo } from './categories';
 import { displayValue } from './si-input';
 import PartForm from './PartForm';

@@ -4,7 +4,7 @@ import { SCHEME_IDS, SCHEME_LABELS, type SchemeId } from '../../engine/scheme-id
 import { $dirty, $saved } from '../../stores/saved';
 import { $overrides } from '../../stores/overrides';
 import { $evaluation } from '../../stores/evaluation';
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 
 interface Props {
   specId: string;

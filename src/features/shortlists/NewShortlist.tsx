@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 
 /** Starts a draft shortlist for a spec and opens it. */
 export default function NewShortlist({ specs, initialSpecId }: { specs: { id: string; name: string }[]; initialSpecId: string | null }) {

@@ -1,4 +1,4 @@
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 
 /** Calls a shortlist endpoint and reloads the page on success; returns the error text otherwise. */
 export async function actThenReload(method: string, url: string, body: unknown = {}): Promise<string | null> {

@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { api } from '../compare/api';
+import { api } from '../../lib/api-client';
 import type { SpecRow } from './spec-row';
 
 /** A row as the page hands it over (the hazard flag stays on the server). */

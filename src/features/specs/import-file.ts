@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { parseQuantity } from '../../lib/units';
-import { NUMERIC_FIELDS } from '../compare/fields';
+import { NUMERIC_FIELDS } from '../../lib/spec-fields';
 import type { FieldProblem } from '../../lib/server/http';
 import { MAX_JSON_DEPTH, nestsDeeperThan } from '../../lib/text-guard';
 

@@ -1,7 +1,7 @@
 import { useStore } from '@nanostores/react';
 import { SCHEME_LABELS, type SchemeId } from '../../engine/scheme-ids';
 import { formatSi } from '../../lib/si';
-import { $sweepHandoff } from './handoff';
+import { $sweepHandoff } from '../../stores/sweep-handoff';
 
 /** On Compare: which sweep point was applied (scheme and values), and a way back to the saved set. */
 export default function SweepHandoffNote() {

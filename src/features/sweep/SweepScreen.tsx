@@ -2,7 +2,7 @@ import { lazy, Suspense, useCallback, useDeferredValue, useEffect, useMemo, useR
 import { SCHEME_IDS, SCHEME_LABELS, type NormalisedSpec, type PartsLibrary, type SchemeId } from '../../engine';
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { formatSi } from '../../lib/si';
-import { handoffHref } from './handoff';
+import { handoffHref } from '../../stores/sweep-handoff';
 import { DEFAULT_SETTINGS, planSweep, settingsProblems, type SweepSettings } from './plan';
 import { overrideOf, pointAt, type DesignPoint } from './points';
 import { SweepPool, type SweepResult } from './pool';

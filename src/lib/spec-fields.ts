@@ -1,5 +1,5 @@
-import type { QuantityKind } from '../../lib/units';
-import { formatSi } from '../../lib/si';
+import type { QuantityKind } from './units';
+import { formatSi } from './si';
 
 export type NumericFieldKey =
   | 'vinMinV' | 'vinNomV' | 'vinMaxV' | 'voutV' | 'ioutA' | 'fswHz' | 'voutRippleV' | 'rippleRatio'

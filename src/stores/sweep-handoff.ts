@@ -1,6 +1,6 @@
 import { atom } from 'nanostores';
-import { SCHEME_IDS, SCHEME_LABELS, type SchemeId } from '../../engine/scheme-ids';
-import { schemeOverrideSchema, type SchemeOverride } from '../../schemas/spec';
+import { SCHEME_IDS, SCHEME_LABELS, type SchemeId } from '../engine/scheme-ids';
+import { schemeOverrideSchema, type SchemeOverride } from '../schemas/spec';
 
 /**
  * Hand-over of a Sweep point to Compare through the URL: `?overrides=<base64url JSON of
