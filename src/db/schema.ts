@@ -2,6 +2,12 @@ import { sql } from 'drizzle-orm';
 import {
   bigserial, boolean, check, customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core';
+import type { Comparison, SchemeResult } from '../engine/result-types';
+import type { StoredLibrary } from '../engine/parts/types';
+import type { NormalisedSpec, SchemeOverride, SpecInput } from '../schemas/spec';
+import type { SchemeId } from '../engine/scheme-ids';
+import type { BriefDraft } from '../schemas/briefs';
+import type { BriefContent } from '../schemas/brief-content';
 
 /** PostgreSQL bytea as a Buffer (PGlite returns a Uint8Array, node-postgres a Buffer). */
 const bytea = customType<{ data: Buffer; driverData: Uint8Array }>({
@@ -50,10 +56,10 @@ export const specs = pgTable(
     name: text('name').notNull(),
     customer: text('customer').notNull().default(''),
     ownerId: text('owner_id').notNull().references(() => users.id),
-    requirements: jsonb('requirements').$type<Record<string, unknown>>().notNull(),
+    requirements: jsonb('requirements').$type<SpecInput>().notNull(),
     version: integer('version').notNull().default(1),
     /** The server's own evaluation of `requirements` at `version`, with the engine version it used. */
-    comparison: jsonb('comparison').$type<Record<string, unknown>>(),
+    comparison: jsonb('comparison').$type<Comparison>(),
     engineVersion: text('engine_version'),
     evaluatedAt: timestamp('evaluated_at', { withTimezone: true, mode: 'date' }),
     updatedById: text('updated_by_id').references(() => users.id),
@@ -148,8 +154,8 @@ export const candidates = pgTable(
   {
     id: text('id').primaryKey(),
     shortlistId: text('shortlist_id').notNull().references(() => shortlists.id, { onDelete: 'cascade' }),
-    scheme: text('scheme').notNull(),
-    overrides: jsonb('overrides').$type<Record<string, unknown>>().notNull().default({}),
+    scheme: text('scheme').$type<SchemeId>().notNull(),
+    overrides: jsonb('overrides').$type<SchemeOverride>().notNull().default({}),
     note: text('note').notNull().default(''),
     createdById: text('created_by_id').notNull().references(() => users.id),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
@@ -166,9 +172,9 @@ export const candidateSnapshots = pgTable(
     id: text('id').primaryKey(),
     candidateId: text('candidate_id').notNull().references(() => candidates.id, { onDelete: 'cascade' }),
     /** The engine's full result for the scheme. */
-    result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+    result: jsonb('result').$type<SchemeResult>().notNull(),
     /** The normalised requirement set the result was computed from. */
-    input: jsonb('input').$type<Record<string, unknown>>().notNull(),
+    input: jsonb('input').$type<NormalisedSpec>().notNull(),
     engineVersion: text('engine_version').notNull(),
     specVersion: integer('spec_version').notNull(),
     partsLibraryVersion: text('parts_library_version'),
@@ -230,7 +236,7 @@ export type OutboxMessage = typeof outbox.$inferSelect;
  */
 export const partsLibraryVersions = pgTable('parts_library_versions', {
   version: integer('version').primaryKey(),
-  library: jsonb('library').$type<Record<string, unknown>>().notNull(),
+  library: jsonb('library').$type<StoredLibrary>().notNull(),
   summary: text('summary').notNull(),
   /** Per-part changes: [{op: 'add'|'change'|'retire', category, id, fields?}]. */
   changes: jsonb('changes').$type<Record<string, unknown>[]>().notNull().default([]),
@@ -277,7 +283,7 @@ export const briefs = pgTable(
     customerName: text('customer_name').notNull(),
     customerContact: text('customer_contact').notNull().default(''),
     /** Editable draft: summary text, recommended scheme, contingency, risks… */
-    draft: jsonb('draft').$type<Record<string, unknown>>().notNull(),
+    draft: jsonb('draft').$type<BriefDraft>().notNull(),
     createdById: text('created_by_id').notNull().references(() => users.id),
     ...stamps,
   },
@@ -292,7 +298,7 @@ export const briefVersions = pgTable(
     id: text('id').primaryKey(),
     briefId: text('brief_id').notNull().references(() => briefs.id, { onDelete: 'cascade' }),
     version: integer('version').notNull(),
-    content: jsonb('content').$type<Record<string, unknown>>().notNull(),
+    content: jsonb('content').$type<BriefContent>().notNull(),
     sentTo: text('sent_to').notNull().default(''),
     sentById: text('sent_by_id').references(() => users.id),
     sentAt: timestamp('sent_at', { withTimezone: true, mode: 'date' }),

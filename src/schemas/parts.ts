@@ -120,7 +120,8 @@ export function parseStoredLibrary(raw: unknown, version: number): PartsLibrary 
     if (!Array.isArray(list)) throw new Error(`stored parts library version ${version} has no ${category.key} list`);
     library[category.key] = list.map((part) => partSchemaOf(category.key).parse(part));
   }
-  return library as unknown as PartsLibrary;
+  // Every category was parsed by its part schema just above; the table of categories is the type's.
+  return library as PartsLibrary;
 }
 
 // ── Reply shapes (for the OpenAPI document) ─────────────────────────────────────────────────

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
+import { frozenSnapshot } from '../helpers/snapshots';
 import { backends, seededDemoDatabase } from '../helpers/databases';
 import { addCandidate, castBallot, closeVoting, createShortlist, openVoting, ShortlistRuleError } from '../../src/db/queries/shortlists';
 import { auditLog, ballots } from '../../src/db/schema';
@@ -7,7 +8,7 @@ import { auditLog, ballots } from '../../src/db/schema';
 // Group commit of ballots (issue #8): ballots cast at the same moment share transactions, yet each
 // one gets exactly the answer it would get alone. Rules from the ballot workflow, checked per ballot.
 
-const snapshot = { result: { scheme: 'two-switch' }, input: {}, engineVersion: 'test', specVersion: 1, partsLibraryVersion: null };
+const snapshot = frozenSnapshot('two-switch');
 const architect = { id: 'demo-architect', role: 'architect' };
 
 /** The rejection of a ballot as `status message`, or 'ok' / 'changed'. */

@@ -40,7 +40,7 @@ describe.each(backends())('briefs on $name', (backend) => {
     const db = database().db;
     const id = await brief('demo-spec-3');
     const loaded = (await loadBrief(db, id, { demo: true }))!;
-    const content = loaded.content as unknown as Record<string, unknown>;
+    const { content } = loaded;
     const { token, tokenHash } = newShareToken();
     expect(hashShareToken(token)).toBe(tokenHash);
     const now = new Date();
@@ -59,7 +59,7 @@ describe.each(backends())('briefs on $name', (backend) => {
   it('only the hash is stored; revoking ends the link; views are logged; changes are audited', async () => {
     const db = database().db;
     const id = await brief('demo-spec-2');
-    const content = (await loadBrief(db, id, { demo: true }))!.content as unknown as Record<string, unknown>;
+    const content = (await loadBrief(db, id, { demo: true }))!.content;
     const { token, tokenHash } = newShareToken();
     const { version, share } = await recordSend(db, id, content, 'buyer@cobalt-ridge.example', { tokenHash, expiresAt: shareExpiry() }, 'demo-sales');
     expect(version.version).toBe(1);
@@ -78,8 +78,8 @@ describe.each(backends())('briefs on $name', (backend) => {
   it('sharing an unchanged brief reuses its latest version (content compares after the jsonb round trip)', async () => {
     const db = database().db;
     const id = await brief('demo-spec-1');
-    const content = (await loadBrief(db, id, { demo: true }))!.content as unknown as Record<string, unknown>;
-    const same = (latest: Record<string, unknown>) => sameContent(latest, content);
+    const content = (await loadBrief(db, id, { demo: true }))!.content;
+    const same = (latest: typeof content) => sameContent(latest, content);
     const first = await recordShare(db, id, content, same, { tokenHash: newShareToken().tokenHash, expiresAt: shareExpiry() }, 'demo-sales');
     const second = await recordShare(db, id, content, same, { tokenHash: newShareToken().tokenHash, expiresAt: shareExpiry() }, 'demo-sales');
     expect([first.frozeNew, second.frozeNew]).toEqual([true, false]);

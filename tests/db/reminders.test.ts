@@ -6,6 +6,7 @@ import { createMailer, type Mailer } from '../../src/lib/server/mail';
 import { addCandidate, castBallot, createShortlist, openVoting } from '../../src/db/queries/shortlists';
 import { sendDueReminders } from '../../src/features/shortlists/notify.server';
 import { outbox, shortlists } from '../../src/db/schema';
+import { frozenSnapshot } from '../helpers/snapshots';
 
 let database: Database;
 let mailer: Mailer;
@@ -19,7 +20,7 @@ afterAll(async () => {
   await database?.close();
 });
 
-const snapshot = { result: { scheme: 'two-switch' }, input: {}, engineVersion: 'test', specVersion: 1, partsLibraryVersion: null };
+const snapshot = frozenSnapshot('two-switch');
 const architect = { id: 'demo-architect', role: 'architect' };
 
 describe('day-before ballot reminders', () => {

@@ -48,7 +48,7 @@ export interface BriefInsert {
   title: string;
   customerName: string;
   customerContact: string;
-  draft: Record<string, unknown>;
+  draft: Brief['draft'];
 }
 
 export async function createBrief(db: Db, input: BriefInsert, actorId: string): Promise<string> {
@@ -60,7 +60,7 @@ export async function createBrief(db: Db, input: BriefInsert, actorId: string): 
   return id;
 }
 
-export async function updateBrief(db: Db, id: string, input: { title: string; customerName: string; customerContact: string; draft: Record<string, unknown> }, actorId: string): Promise<boolean> {
+export async function updateBrief(db: Db, id: string, input: { title: string; customerName: string; customerContact: string; draft: Brief['draft'] }, actorId: string): Promise<boolean> {
   return db.transaction(async (tx) => {
     const rows = await tx.update(briefs).set({ ...input, updatedAt: new Date() }).where(eq(briefs.id, id)).returning({ id: briefs.id });
     if (rows.length === 0) return false;
@@ -138,7 +138,7 @@ async function nextVersion(tx: Tx, briefId: string): Promise<number> {
   return (row?.v ?? 0) + 1;
 }
 
-async function insertVersion(tx: Tx, briefId: string, content: Record<string, unknown>, sent: { to: string; byId: string } | null): Promise<BriefVersion> {
+async function insertVersion(tx: Tx, briefId: string, content: BriefVersion['content'], sent: { to: string; byId: string } | null): Promise<BriefVersion> {
   const [row] = await tx
     .insert(briefVersions)
     .values({ id: newId(), briefId, version: await nextVersion(tx, briefId), content, sentTo: sent?.to ?? '', sentById: sent?.byId ?? null, sentAt: sent ? new Date() : null })
@@ -157,7 +157,7 @@ export interface ShareGrant {
 }
 
 /** A send: freezes the version that goes out and its share link, with one audit entry. */
-export async function recordSend(db: Db, briefId: string, content: Record<string, unknown>, sentTo: string, grant: ShareGrant, actorId: string): Promise<{ version: BriefVersion; share: BriefShare }> {
+export async function recordSend(db: Db, briefId: string, content: BriefVersion['content'], sentTo: string, grant: ShareGrant, actorId: string): Promise<{ version: BriefVersion; share: BriefShare }> {
   return db.transaction(async (tx) => {
     const version = await insertVersion(tx, briefId, content, { to: sentTo, byId: actorId });
     const share = await insertShare(tx, version.id, grant.tokenHash, grant.expiresAt, actorId);
@@ -171,7 +171,7 @@ export async function recordSend(db: Db, briefId: string, content: Record<string
  * A share link to the latest version, freezing a new (unsent) version first when the brief
  * has none yet or its content changed since (`sameAsLatest` decides).
  */
-export async function recordShare(db: Db, briefId: string, content: Record<string, unknown>, sameAsLatest: (latest: Record<string, unknown>) => boolean, grant: ShareGrant, actorId: string): Promise<{ version: BriefVersion; share: BriefShare; frozeNew: boolean }> {
+export async function recordShare(db: Db, briefId: string, content: BriefVersion['content'], sameAsLatest: (latest: BriefVersion['content']) => boolean, grant: ShareGrant, actorId: string): Promise<{ version: BriefVersion; share: BriefShare; frozeNew: boolean }> {
   return db.transaction(async (tx) => {
     const [latestRow] = await tx.select().from(briefVersions).where(eq(briefVersions.briefId, briefId)).orderBy(desc(briefVersions.version)).limit(1);
     const frozeNew = !latestRow || !sameAsLatest(latestRow.content);

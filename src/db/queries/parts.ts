@@ -1,7 +1,7 @@
 import { desc, eq, max } from 'drizzle-orm';
 import { hasSingleWriter, type Db } from '../client';
 import { newId } from '../ids';
-import { partsLibraryVersions, uploads, users } from '../schema';
+import { partsLibraryVersions, uploads, users, type PartsLibraryVersion } from '../schema';
 import { recordAudit } from './audit';
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -36,7 +36,7 @@ export async function currentLibraryVersion(db: Db): Promise<number | null> {
 
 export interface LibraryVersionRow {
   version: number;
-  library: Record<string, unknown>;
+  library: PartsLibraryVersion['library'];
   summary: string;
   createdAt: Date;
 }
@@ -83,7 +83,7 @@ export async function listLibraryHistory(db: Db, limit = 200): Promise<HistoryEn
 }
 
 /** Seeds version 1 when the table is empty; a no-op (false) otherwise. */
-export async function seedLibraryIfEmpty(db: Writer, library: Record<string, unknown>, summary: string): Promise<boolean> {
+export async function seedLibraryIfEmpty(db: Writer, library: PartsLibraryVersion['library'], summary: string): Promise<boolean> {
   const added = await db
     .insert(partsLibraryVersions)
     .values({ version: 1, library, summary, changes: [], actorId: null })
@@ -103,7 +103,7 @@ export interface UploadRecord {
 }
 
 export interface NewLibraryVersion {
-  library: Record<string, unknown>;
+  library: PartsLibraryVersion['library'];
   summary: string;
   changes: Record<string, unknown>[];
   actorId: string;

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../client';
 import { newId } from '../ids';
-import { auditLog, ballots, candidateSnapshots, candidates, shortlists, shortlistVoters, specs, users, type Shortlist } from '../schema';
+import { auditLog, ballots, candidateSnapshots, candidates, shortlists, shortlistVoters, specs, users, type Candidate, type CandidateSnapshot, type Shortlist } from '../schema';
 import { recordAudit } from './audit';
 import { ShortlistRuleError } from './shortlist-rules';
 
@@ -9,8 +9,8 @@ export { ShortlistRuleError } from './shortlist-rules';
 export { castBallot } from './ballots';
 
 export interface SnapshotWrite {
-  result: Record<string, unknown>;
-  input: Record<string, unknown>;
+  result: CandidateSnapshot['result'];
+  input: CandidateSnapshot['input'];
   engineVersion: string;
   specVersion: number;
   partsLibraryVersion: string | null;
@@ -91,7 +91,7 @@ export async function getShortlist(db: Db, id: string): Promise<Shortlist | unde
 export async function addCandidate(
   db: Db,
   shortlistId: string,
-  input: { scheme: string; overrides: Record<string, unknown>; note: string },
+  input: { scheme: Candidate['scheme']; overrides: Candidate['overrides']; note: string },
   snapshot: SnapshotWrite,
   actorId: string,
 ): Promise<string> {

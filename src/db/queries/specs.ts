@@ -2,7 +2,7 @@ import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../client';
 import { newId } from '../ids';
-import { specs, users } from '../schema';
+import { specs, users, type Spec } from '../schema';
 import { recordAudit } from './audit';
 
 export interface SpecSummary {
@@ -11,7 +11,7 @@ export interface SpecSummary {
   customer: string;
   ownerId: string;
   ownerName: string;
-  requirements: Record<string, unknown>;
+  requirements: Spec['requirements'];
   version: number;
   engineVersion: string | null;
   archivedAt: Date | null;
@@ -21,7 +21,7 @@ export interface SpecSummary {
 }
 
 export interface SpecDetail extends SpecSummary {
-  comparison: Record<string, unknown> | null;
+  comparison: Spec['comparison'];
   evaluatedAt: Date | null;
 }
 
@@ -67,8 +67,8 @@ export async function getSpec(db: Db, id: string): Promise<SpecDetail | undefine
 export interface SpecWrite {
   name: string;
   customer: string;
-  requirements: Record<string, unknown>;
-  comparison: Record<string, unknown>;
+  requirements: Spec['requirements'];
+  comparison: NonNullable<Spec['comparison']>;
   engineVersion: string;
 }
 

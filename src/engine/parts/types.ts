@@ -4,23 +4,23 @@
  */
 
 /** Unit price that applies from `minQty` pieces per year upwards. */
-export interface PriceTier {
+export type PriceTier = {
   minQty: number;
   unitPrice: number;
-}
+};
 
 /** Approval status of a part: `nfnd` = not for new designs (never picked automatically). */
 export type PartStatus = 'preferred' | 'allowed' | 'nfnd';
 
-interface PartBase {
+export type PartBase = {
   id: string;
   description?: string;
   status: PartStatus;
   tiers: PriceTier[];
-}
+};
 
 /** Power MOSFET (primary switch, clamp switch or synchronous rectifier). */
-export interface MosfetPart extends PartBase {
+export type MosfetPart = PartBase & {
   channel: 'n' | 'p';
   vdsV: number;
   /** Continuous drain current rating at 25 °C case. */
@@ -31,29 +31,29 @@ export interface MosfetPart extends PartBase {
   qgC: number;
   /** Energy-related output capacitance Co(er). */
   cossF: number;
-}
+};
 
 /** Schottky or ultrafast rectifier (also used for clamp and reset diodes). */
-export interface RectifierPart extends PartBase {
+export type RectifierPart = PartBase & {
   kind: 'schottky' | 'ultrafast';
   vrrmV: number;
   ifA: number;
   vfV: number;
   /** Reverse-recovery charge (≈ 0 for Schottky; junction charge neglected). */
   qrrC: number;
-}
+};
 
 /** Gate driver; `peakA` is the source/sink peak current. */
-export interface GateDriverPart extends PartBase {
+export type GateDriverPart = PartBase & {
   kind: 'low-side' | 'bootstrap-high-side' | 'isolated';
   peakA: number;
-}
+};
 
 /** IEC ferrite core shape families used in the library. */
 export type CoreShapeFamily = 'E' | 'EFD' | 'ETD' | 'PQ' | 'RM' | 'EQ';
 
 /** Ferrite core set (pair) with effective parameters and a generic power-ferrite Steinmetz fit. */
-export interface CorePart extends PartBase {
+export type CorePart = PartBase & {
   shapeFamily: CoreShapeFamily;
   size: string;
   aeM2: number;
@@ -73,41 +73,41 @@ export interface CorePart extends PartBase {
   bsatT: number;
   /** Remanent flux density at 100 °C. */
   brT: number;
-}
+};
 
 /** Capacitor (output filter, clamp or resonant capacitor). */
-export interface CapacitorPart extends PartBase {
+export type CapacitorPart = PartBase & {
   dielectric: 'ceramic' | 'polymer' | 'film' | 'electrolytic';
   capacitanceF: number;
   voltageV: number;
   esrOhm: number;
-}
+};
 
 /** Resistor family: the value is chosen from an E-series; the part fixes the power rating. */
-export interface ResistorPart extends PartBase {
+export type ResistorPart = PartBase & {
   powerW: number;
   voltageV: number;
-}
+};
 
 /**
  * Output-inductor core family wound to the value needed: stores at most `energyJ` (½·L·I²)
  * and its winding resistance scales with inductance, `dcrOhmPerH` (R = dcrOhmPerH·L).
  */
-export interface InductorPart extends PartBase {
+export type InductorPart = PartBase & {
   energyJ: number;
   dcrOhmPerH: number;
-}
+};
 
 /**
  * Winding of a transformer by the team's winding shop: `tiers` price the labour of one winding (layers, insulation,
  * terminations) at volume; the copper is priced by its mass at `copperPricePerKg` (library currency per kilogram).
  */
-export interface WindingPart extends PartBase {
+export type WindingPart = PartBase & {
   copperPricePerKg: number;
-}
+};
 
 /** A whole parts library. */
-export interface PartsLibrary {
+export type PartsLibrary = {
   name: string;
   version: string;
   /** ISO 4217 code of every unit price. */
@@ -126,7 +126,18 @@ export interface PartsLibrary {
   inductors: InductorPart[];
   /** Winding labour and copper; libraries from before windings were costed have none (the engine then says so). */
   windings: WindingPart[];
-}
+};
 
 /** Library category names. */
 export type PartCategory = Exclude<keyof PartsLibrary, 'name' | 'version' | 'currency' | 'demo' | 'note'>;
+
+/** Any part of any category. */
+export type AnyPart = PartsLibrary[PartCategory][number];
+
+/** A library as stored: the version number lives in its own database column. */
+export type StoredLibrary = Omit<PartsLibrary, 'version'>;
+
+/** The parts of one category, each readable field by field (for tables, CSV and change lists). */
+export function partsOf(library: PartsLibrary, category: PartCategory): readonly (AnyPart & Readonly<Record<string, unknown>>)[] {
+  return library[category];
+}

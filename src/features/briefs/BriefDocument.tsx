@@ -1,6 +1,6 @@
 import SafetyCautionText from '../../components/SafetyCautionText';
 import { VERDICT_LABELS, type Verdict } from '../../lib/verdict';
-import type { BriefContent, BriefLine } from './content';
+import type { BriefContent, BriefLine } from '../../schemas/brief-content';
 import { formatCount, formatMoney } from '../../lib/format';
 import { COST_NOTICE, ESTIMATE_NOTICE } from './notices';
 import StressChart from './StressChart';

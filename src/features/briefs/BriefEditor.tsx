@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { VERDICT_LABELS } from '../../lib/verdict';
-import type { BriefVerdict } from './content';
+import type { BriefVerdict } from '../../schemas/brief-content';
 
 export interface EditorForm {
   title: string;

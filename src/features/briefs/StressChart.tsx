@@ -1,6 +1,6 @@
 import { SCHEME_STYLES } from '../../lib/scheme-style';
 import { VERDICT_LABELS } from '../../lib/verdict';
-import type { BriefChartBar } from './content';
+import type { BriefChartBar } from '../../schemas/brief-content';
 
 const W = 640;
 const ROW = 30;

@@ -1,6 +1,6 @@
 import type { BriefRow, VersionWithShares } from '../../db/queries/briefs';
 import type { BriefDraft } from '../../schemas/briefs';
-import type { BriefContent } from './content';
+import type { BriefContent } from '../../schemas/brief-content';
 
 const iso = (d: Date | null): string | null => (d === null ? null : d.toISOString());
 
@@ -29,7 +29,7 @@ export function toVersionJson(v: VersionWithShares) {
     sentBy: v.sentByName,
     sentAt: iso(v.sentAt),
     frozenAt: v.createdAt.toISOString(),
-    content: v.content as unknown as BriefContent,
+    content: v.content,
     shares: v.shares.map((s) => ({
       id: s.id, createdAt: s.createdAt.toISOString(), expiresAt: s.expiresAt.toISOString(), revokedAt: iso(s.revokedAt),
       views: s.views, lastViewAt: iso(s.lastViewAt),

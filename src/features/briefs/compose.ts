@@ -3,7 +3,7 @@ import type { SchemeId } from '../../engine/scheme-ids';
 import { isHazardous } from '../../lib/safety';
 import type { BriefDraft } from '../../schemas/briefs';
 import { verdictOf, type Verdict } from '../../lib/verdict';
-import type { BriefContent, BriefCost, BriefRecommendation } from './content';
+import type { BriefContent, BriefCost, BriefRecommendation } from '../../schemas/brief-content';
 import { assumptionLines, keyFigures, requirementLines, riskLines } from './lines';
 import { verdictReasons } from './reasons';
 import { defaultSummary } from './summary';

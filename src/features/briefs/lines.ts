@@ -1,6 +1,6 @@
 import type { Comparison, NormalisedSpec, SchemeResult } from '../../engine';
 import { formatCount, formatMoney, formatPercent, formatSi, formatSiRange } from '../../lib/format';
-import type { BriefLine } from './content';
+import type { BriefLine } from '../../schemas/brief-content';
 import { plainReason } from './reasons';
 
 

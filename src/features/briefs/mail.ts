@@ -1,5 +1,5 @@
 import { VERDICT_LABELS } from '../../lib/verdict';
-import type { BriefContent } from './content';
+import type { BriefContent } from '../../schemas/brief-content';
 import { formatCount, formatMoney } from '../../lib/format';
 import { ESTIMATE_NOTICE, SAFETY_TEXT } from './notices';
 

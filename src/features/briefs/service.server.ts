@@ -9,7 +9,7 @@ import { briefDraftSchema, type BriefDraft } from '../../schemas/briefs';
 import { DEMO_COMPANY } from '../../demo/accounts';
 import { currentLibrary } from '../parts/library.server';
 import { composeBrief } from './compose';
-import type { BriefContent } from './content';
+import type { BriefContent } from '../../schemas/brief-content';
 
 const isScheme = (v: string | null): v is SchemeId => v !== null && (SCHEME_IDS as readonly string[]).includes(v);
 
@@ -91,6 +91,6 @@ function canonical(value: unknown): string {
 }
 
 /** Two contents say the same thing, whatever order the database returned their keys in. */
-export function sameContent(a: Record<string, unknown>, b: Record<string, unknown>): boolean {
+export function sameContent(a: BriefContent, b: BriefContent): boolean {
   return canonical(a) === canonical(b);
 }

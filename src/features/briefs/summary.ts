@@ -1,6 +1,6 @@
 import type { NormalisedSpec } from '../../engine';
 import { formatSi, formatSiRange } from '../../lib/si';
-import type { BriefContent } from './content';
+import type { BriefContent } from '../../schemas/brief-content';
 import { formatCount, formatMoney } from '../../lib/format';
 
 /** "Two-switch" → "two-switch"; acronyms such as "RCD clamp" stay as they are. */

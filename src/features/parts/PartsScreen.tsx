@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import type { PartsLibrary } from '../../engine/parts/types';
+import { partsOf, type PartsLibrary } from '../../engine/parts/types';
 import { api } from '../../lib/api-client';
 import { CATEGORIES, STATUS_LABELS, type CategoryInfo } from './categories';
 import { displayValue } from './si-input';
@@ -31,7 +31,7 @@ export default function PartsScreen({ library: initialLibrary, version: initialV
   const [importing, setImporting] = useState(false);
   const [message, setMessage] = useState<{ text: string; error: boolean } | null>(null);
 
-  const parts = library[tab.key] as unknown as Part[];
+  const parts: readonly Part[] = partsOf(library, tab.key);
   const shown = useMemo(() => {
     const q = query.trim().toLowerCase();
     const list = parts.filter((p) => (!status || p.status === status) && (!q || `${p.id} ${p.description ?? ''} ${tab.fields.map((f) => String(p[f.key])).join(' ')}`.toLowerCase().includes(q)));

@@ -1,4 +1,4 @@
-import type { PartCategory, PartsLibrary } from '../../engine/parts/types';
+import { partsOf, type AnyPart, type PartCategory, type PartsLibrary } from '../../engine/parts/types';
 import { CATEGORIES, categoryInfo } from './categories';
 
 /**
@@ -39,7 +39,7 @@ export function fieldChanges(before: Record<string, unknown>, after: Record<stri
 /** Where a part id lives in a library, or undefined. Ids are unique across every category. */
 export function locatePart(library: PartsLibrary, id: string): { category: PartCategory; index: number; part: PartRecord } | undefined {
   for (const { key } of CATEGORIES) {
-    const list = library[key] as unknown as PartRecord[];
+    const list = partsOf(library, key);
     const index = list.findIndex((p) => p.id === id);
     if (index >= 0) return { category: key, index, part: list[index]! };
   }
@@ -48,16 +48,16 @@ export function locatePart(library: PartsLibrary, id: string): { category: PartC
 
 /** A new library with the changes applied (the input is not mutated). */
 export function applyChanges(library: PartsLibrary, changes: readonly PartChange[]): PartsLibrary {
-  const next: Record<string, unknown> = { ...library };
-  for (const { key } of CATEGORIES) next[key] = [...(library[key] as unknown as PartRecord[])];
+  const lists = new Map<PartCategory, AnyPart[]>(CATEGORIES.map(({ key }) => [key, [...partsOf(library, key)]]));
   for (const change of changes) {
-    const list = next[change.category] as PartRecord[];
+    const list = lists.get(change.category)!;
     const index = list.findIndex((p) => p.id === change.id);
-    if (change.op === 'add') list.push(change.part as PartRecord);
-    else if (change.op === 'change' && index >= 0) list[index] = change.part as PartRecord;
+    // Parts in a change were checked against their category's schema (partSchemaOf) before they got here.
+    if (change.op === 'add') list.push(change.part as AnyPart);
+    else if (change.op === 'change' && index >= 0) list[index] = change.part as AnyPart;
     else if (change.op === 'retire' && index >= 0) list.splice(index, 1);
   }
-  return next as unknown as PartsLibrary;
+  return { ...library, ...(Object.fromEntries(lists) as Pick<PartsLibrary, PartCategory>) };
 }
 
 /**
@@ -67,7 +67,7 @@ export function applyChanges(library: PartsLibrary, changes: readonly PartChange
 export function emptyCategoryProblems(library: PartsLibrary): string[] {
   const problems: string[] = [];
   for (const { key, label } of CATEGORIES) {
-    const usable = (library[key] as unknown as PartRecord[]).filter((p) => p.status !== 'nfnd');
+    const usable = partsOf(library, key).filter((p) => p.status !== 'nfnd');
     if (usable.length === 0) problems.push(`${label} would have no part left that the engine may choose (preferred or allowed); keep at least one`);
   }
   return problems;

@@ -1,5 +1,5 @@
 import Papa from 'papaparse';
-import type { PartCategory, PartsLibrary } from '../../engine/parts/types';
+import { partsOf, type PartCategory, type PartsLibrary } from '../../engine/parts/types';
 import { guardCell } from '../../lib/comparison-csv';
 import { CATEGORIES, MAX_TIERS, categoryInfo } from './categories';
 
@@ -42,7 +42,7 @@ export function libraryCsv(library: PartsLibrary, category?: PartCategory): stri
   for (const key of categories) {
     const info = categoryInfo(key)!;
     const own = new Set(info.fields.map((f) => f.key));
-    for (const part of library[key] as unknown as Record<string, unknown>[]) {
+    for (const part of partsOf(library, key)) {
       const tiers = (part.tiers as { minQty: number; unitPrice: number }[]).flatMap((t) => [cell(t.minQty), cell(t.unitPrice)]);
       rows.push([
         '', key, cell(part.id), cell(part.status), cell(part.description ?? ''), cell(library.currency),

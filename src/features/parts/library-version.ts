@@ -1,5 +1,7 @@
+import type { Comparison } from '../../engine/result-types';
 /** The parts-library version a stored comparison was computed with ("7"), or null. Both sides. */
-export function storedLibraryVersion(comparison: Record<string, unknown> | null | undefined): string | null {
-  const library = comparison?.partsLibrary as { version?: unknown } | undefined;
-  return typeof library?.version === 'string' ? library.version : null;
+export function storedLibraryVersion(comparison: Pick<Comparison, 'partsLibrary'> | null | undefined): string | null {
+  // Comparisons stored before the library was versioned have none.
+  const version: unknown = comparison?.partsLibrary?.version;
+  return typeof version === 'string' ? version : null;
 }

@@ -1,6 +1,6 @@
 import type { Db } from '../../db/client';
 import { currentLibraryVersion, getLibraryVersion, seedLibraryIfEmpty } from '../../db/queries/parts';
-import type { PartsLibrary } from '../../engine/parts/types';
+import type { PartsLibrary, StoredLibrary } from '../../engine/parts/types';
 import { parseStoredLibrary } from '../../schemas/parts';
 import { SEED_SUMMARY, seedLibraryJson } from './seed-library';
 
@@ -47,7 +47,7 @@ export function invalidateLibrary(db: Db): void {
 }
 
 /** The stored JSON of a library (the version number lives in its own column). */
-export function toStoredLibrary(library: PartsLibrary): Record<string, unknown> {
+export function toStoredLibrary(library: PartsLibrary): StoredLibrary {
   const { version: _version, ...rest } = library;
-  return rest as unknown as Record<string, unknown>;
+  return rest;
 }

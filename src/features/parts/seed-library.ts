@@ -1,4 +1,5 @@
 import { demoPartsLibrary } from '../../engine/parts/demo-library';
+import type { StoredLibrary } from '../../engine/parts/types';
 
 /** Name of the invented demo library as the workspace shows it. */
 export const DEMO_LIBRARY_NAME = 'Halvard demo parts (invented)';
@@ -7,7 +8,7 @@ export const DEMO_LIBRARY_NAME = 'Halvard demo parts (invented)';
  * Version 1 of a workspace's library: the engine's built-in invented demo parts, stored without
  * the engine's own version string (the database version number stands in for it).
  */
-export function seedLibraryJson(): Record<string, unknown> {
+export function seedLibraryJson(): StoredLibrary {
   const { version: _engineVersion, ...rest } = demoPartsLibrary;
   return {
     ...structuredClone(rest),

@@ -1,16 +1,17 @@
+import type { Comparison } from '../../engine/result-types';
 import type { StoredResult } from '../compare/init';
 import { storedLibraryVersion } from './library-version';
 
 /** A short summary of a stored comparison for the Compare page (null when none was stored). */
-export function storedResultOf(comparison: Record<string, unknown> | null, evaluatedAt: Date | null): StoredResult | null {
-  if (!comparison || !Array.isArray(comparison.results)) return null;
-  const results = (comparison.results as Record<string, unknown>[]).map((r) => ({
-    scheme: String(r.scheme),
-    label: String(r.label ?? r.scheme),
-    feasible: r.feasible === true,
-    bomCost: Number(r.bomCost),
-    efficiency: Number(r.efficiency),
-    mainSwitchId: ((r.details as Record<string, unknown> | undefined)?.mainSwitchId as string | null | undefined) ?? null,
+export function storedResultOf(comparison: Comparison | null, evaluatedAt: Date | null): StoredResult | null {
+  if (!comparison) return null;
+  const results = comparison.results.map((r) => ({
+    scheme: r.scheme,
+    label: r.label,
+    feasible: r.feasible,
+    bomCost: r.bomCost,
+    efficiency: r.efficiency,
+    mainSwitchId: r.details.mainSwitchId,
   }));
   return { libraryVersion: storedLibraryVersion(comparison), evaluatedAt: evaluatedAt?.toISOString() ?? null, results };
 }

@@ -2,7 +2,7 @@ import { and, eq, inArray, isNull, lte, gt } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { ballots, candidates, shortlists, shortlistVoters, specs, users } from '../../db/schema';
 import { sendAll, type Mailer } from '../../lib/server/mail';
-import { SCHEME_LABELS, type SchemeId } from '../../engine';
+import { SCHEME_LABELS } from '../../engine';
 import { votingOpenedMail, votingReminderMail, type VotingMailFacts } from './mail';
 
 async function facts(db: Db, shortlistId: string, origin: string): Promise<VotingMailFacts | undefined> {
@@ -16,7 +16,7 @@ async function facts(db: Db, shortlistId: string, origin: string): Promise<Votin
   const live = await db.select({ scheme: candidates.scheme }).from(candidates).where(and(eq(candidates.shortlistId, shortlistId), isNull(candidates.removedAt)));
   return {
     shortlistId, title: row.title, specName: row.specName, ownerName: row.ownerName, deadline: row.deadline,
-    candidates: live.map((c) => SCHEME_LABELS[c.scheme as SchemeId] ?? c.scheme),
+    candidates: live.map((c) => SCHEME_LABELS[c.scheme] ?? c.scheme),
     link: `${origin}/shortlists/${encodeURIComponent(shortlistId)}`,
   };
 }

@@ -12,8 +12,8 @@ export function freezeCandidate(spec: SpecDetail, scheme: SchemeId, overrides: R
   if (!parsed.ok) throw new RangeError(`the saved requirement set does not validate: ${parsed.errors.map((e) => e.message).join('; ')}`);
   const comparison = evaluateNormalised(parsed.value, library);
   return {
-    result: comparison.results[0] as unknown as Record<string, unknown>,
-    input: comparison.input as unknown as Record<string, unknown>,
+    result: comparison.results[0]!,
+    input: comparison.input,
     engineVersion: ENGINE_VERSION,
     specVersion: spec.version,
     partsLibraryVersion: comparison.partsLibrary.version,

@@ -1,4 +1,4 @@
-import { ENGINE_VERSION, SCHEME_LABELS, type SchemeId, type SchemeResult } from '../../engine';
+import { ENGINE_VERSION, SCHEME_LABELS } from '../../engine';
 import type { Db } from '../../db/client';
 import { getSpec } from '../../db/queries/specs';
 import { getShortlist, loadShortlistParts } from '../../db/queries/shortlists';
@@ -38,11 +38,11 @@ export async function shortlistView(db: Db, id: string, user: SignedInUser): Pro
     if (spec && latest.specVersion !== spec.version) staleReasons.push(`frozen from spec version ${latest.specVersion}; the spec is now version ${spec.version}`);
     return {
       id: c.id,
-      scheme: c.scheme as SchemeId,
-      label: SCHEME_LABELS[c.scheme as SchemeId] ?? c.scheme,
+      scheme: c.scheme,
+      label: SCHEME_LABELS[c.scheme] ?? c.scheme,
       note: c.note,
       overrides: c.overrides,
-      result: latest.result as unknown as SchemeResult,
+      result: latest.result,
       variant: {
         activeClampVariant: latest.input.activeClampVariant === 'low-side' ? 'low-side' : 'high-side',
         rectifier: latest.input.rectifier === 'synchronous' ? 'synchronous' : 'diode',

@@ -15,8 +15,8 @@ export async function evaluateForStorage(db: Db, name: string, customer: string,
   return {
     name,
     customer,
-    requirements: toStoredRequirements(spec) as Record<string, unknown>,
-    comparison: comparison as unknown as Record<string, unknown>,
+    requirements: toStoredRequirements(spec),
+    comparison,
     engineVersion: ENGINE_VERSION,
   };
 }

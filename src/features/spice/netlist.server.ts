@@ -1,4 +1,5 @@
 import type { Db } from '../../db/client';
+import type { CandidateSnapshot } from '../../db/schema';
 import type { SpecDetail } from '../../db/queries/specs';
 import { ENGINE_VERSION, evaluateNormalised, parseSpecInput, type NormalisedSpec, type PartsLibrary, type SchemeId } from '../../engine';
 import { currentLibrary, libraryAt } from '../parts/library.server';
@@ -33,9 +34,9 @@ export async function specNetlist(db: Db, spec: SpecDetail, scheme: SchemeId, vi
  * Netlist of a shortlist candidate from its newest frozen snapshot: the normalised requirement set
  * (with the candidate's overrides) the server froze, against the parts-library version it used.
  */
-export async function candidateNetlist(db: Db, name: string, scheme: SchemeId, frozenInput: Record<string, unknown>, libraryVersion: string | null, vin: VinCase): Promise<NetlistOutcome> {
-  // Written by freezeCandidate from evaluateNormalised's own `input`, so it is a normalised spec already.
-  const spec = frozenInput as unknown as NormalisedSpec;
+export async function candidateNetlist(db: Db, name: string, scheme: SchemeId, frozenInput: CandidateSnapshot['input'], libraryVersion: string | null, vin: VinCase): Promise<NetlistOutcome> {
+  // Written by freezeCandidate from evaluateNormalised's own `input`; rows from before that may lack it.
+  const spec = frozenInput;
   if (!Array.isArray(spec.schemes) || typeof spec.vinMinV !== 'number') return { ok: false, status: 422, message: 'The candidate has no usable frozen requirement set; re-evaluate it first.' };
   const stored = libraryVersion !== null && /^\d+$/.test(libraryVersion) ? await libraryAt(db, Number(libraryVersion)) : undefined;
   const { library, version } = stored ?? (await currentLibrary(db));

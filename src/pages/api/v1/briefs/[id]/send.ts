@@ -26,7 +26,7 @@ export const POST: APIRoute = async ({ locals, params, request }) => {
   const expiresAt = shareExpiry(body.data.expiresInDays);
   const to = body.data.to;
   const cc = body.data.cc ?? [];
-  const { version, share } = await recordSend(db, id, loaded.content as unknown as Record<string, unknown>, [...to, ...cc].join(', '), { tokenHash, expiresAt }, user.id);
+  const { version, share } = await recordSend(db, id, loaded.content, [...to, ...cc].join(', '), { tokenHash, expiresAt }, user.id);
   const link = shareUrl(config.linkOrigin, token);
   const mail = briefMail({ content: loaded.content, version: version.version, link, expiresAt, message: body.data.message, senderName: user.displayName });
   const sent = await mailer.send({ kind: 'brief', to, cc, ...mail, related: { type: 'brief', id } });

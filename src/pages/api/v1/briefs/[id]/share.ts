@@ -25,8 +25,7 @@ export const POST: APIRoute = async ({ locals, params, request }) => {
   if (!loaded) return problem(404, 'No brief with this id.');
   const { token, tokenHash } = newShareToken();
   const expiresAt = shareExpiry(body.data.expiresInDays);
-  const content = loaded.content as unknown as Record<string, unknown>;
-  const { version, share, frozeNew } = await recordShare(db, id, content, (latest) => sameContent(latest, content), { tokenHash, expiresAt }, user.id);
+  const { version, share, frozeNew } = await recordShare(db, id, loaded.content, (latest) => sameContent(latest, loaded.content), { tokenHash, expiresAt }, user.id);
   return json({ version: version.version, frozeNewVersion: frozeNew, share: { id: share.id, url: shareUrl(config.linkOrigin, token), expiresAt: expiresAt.toISOString() } }, 201);
 };
 

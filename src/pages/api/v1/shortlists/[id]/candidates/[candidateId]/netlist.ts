@@ -7,7 +7,7 @@ import { getSpec } from '../../../../../../../db/queries/specs';
 import { mayRead } from '../../../../../../../features/shortlists/view.server';
 import { candidateNetlist } from '../../../../../../../features/spice/netlist.server';
 import { candidateNetlistQuerySchema, queryObject } from '../../../../../../../features/spice/query';
-import { SCHEME_IDS, type SchemeId } from '../../../../../../../engine';
+import { SCHEME_IDS } from '../../../../../../../engine';
 
 /** Netlist of a shortlist candidate from its newest frozen snapshot (`?vin=min|nom|max`). */
 export const GET: APIRoute = async ({ locals, params, url }) => {
@@ -25,7 +25,7 @@ export const GET: APIRoute = async ({ locals, params, url }) => {
   const snapshot = parts.snapshots.filter((s) => s.candidateId === candidate.id).at(-1);
   if (!snapshot) return problem(404, 'This candidate has no frozen result yet.');
   const spec = await getSpec(db, shortlist.specId);
-  const outcome = await candidateNetlist(db, `${spec?.name ?? 'spec'} - ${shortlist.title}`, candidate.scheme as SchemeId, snapshot.input, snapshot.partsLibraryVersion, query.data.vin);
+  const outcome = await candidateNetlist(db, `${spec?.name ?? 'spec'} - ${shortlist.title}`, candidate.scheme, snapshot.input, snapshot.partsLibraryVersion, query.data.vin);
   if (!outcome.ok) return problem(outcome.status, outcome.message);
   return new Response(outcome.text, {
     headers: { 'content-type': 'text/plain; charset=utf-8', 'content-disposition': `attachment; filename="${outcome.filename}"`, 'cache-control': 'no-store' },

@@ -7,7 +7,6 @@ import { addSnapshot, getShortlist, loadShortlistParts } from '../../../../../..
 import { getSpec } from '../../../../../../../db/queries/specs';
 import { freezeCandidate } from '../../../../../../../features/shortlists/snapshot.server';
 import { ruled } from '../../../../../../../features/shortlists/http.server';
-import type { SchemeId } from '../../../../../../../engine';
 
 /** A new snapshot from the current spec and engine; the earlier ones are kept (owner, draft). */
 export const POST: APIRoute = async ({ locals, params, request }) => {
@@ -22,7 +21,7 @@ export const POST: APIRoute = async ({ locals, params, request }) => {
   if (!candidate) return problem(404, 'No such candidate on this shortlist.');
   const spec = await getSpec(db, shortlist.specId);
   if (!spec) return problem(404, 'The shortlist\'s requirement set is missing.');
-  const snapshot = freezeCandidate(spec, candidate.scheme as SchemeId, candidate.overrides);
+  const snapshot = freezeCandidate(spec, candidate.scheme, candidate.overrides);
   return ruled(async () => {
     await addSnapshot(db, shortlist.id, candidate.id, snapshot, user);
     return json({ reevaluated: true, engineVersion: snapshot.engineVersion, specVersion: snapshot.specVersion });

@@ -1,5 +1,5 @@
-import type { SchemeId } from '../../engine/scheme-ids';
-import type { Verdict } from '../../lib/verdict';
+import type { SchemeId } from '../engine/scheme-ids';
+import type { Verdict } from '../lib/verdict';
 
 /**
  * A brief as the customer reads it: every figure already worded and formatted. A send freezes
