@@ -9,10 +9,13 @@
  * for at least `SECONDS`. Wall-clock rate is the figure; the CPU share (process CPU time / wall
  * time) shows whether the machine was busy with other work while measuring.
  */
-import { demoPartsLibrary, evaluateLean, evaluateNormalised, parseSpecInput, SCHEME_IDS, type NormalisedSpec } from '../src/engine/index';
+import { demoPartsLibrary, evaluate, evaluateLean, evaluateNormalised, parseSpecInput, SCHEME_IDS, type NormalisedSpec } from '../src/engine/index';
 import { demoSpecs } from '../src/demo/specs';
 import { DEFAULT_SETTINGS, planSweep } from '../src/features/sweep/plan';
 import { runSweep, STRIDE } from '../src/features/sweep/run';
+import { buildCostStacks, buildLossStacks } from '../src/features/compare/charts/stacks';
+import { buildDutySeries, buildStressSeries, buildSweeps } from '../src/features/compare/charts/sweep-series';
+import { buildWaveSeries } from '../src/features/compare/charts/wave-series';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 2);
 const N_SPECS = 1024;
@@ -116,6 +119,26 @@ function sweepFigure(): { points: number; bestMs: number; checksum: number } {
 }
 const sweep = sweepFigure();
 
+/** Compare's chart data for every scheme of one comparison (what a live edit rebuilds before Chart.js draws). */
+function chartDataFigure(): { bestMs: number; medianMs: number } {
+  const base = evaluate(demoSpecs[0]!.requirements);
+  const times: number[] = [];
+  for (let r = 0; r < 23; r++) {
+    const c = structuredClone(base); // a new comparison each run, as after an edit (the chart code caches by identity)
+    const t0 = performance.now();
+    const sweeps = buildSweeps(c, demoPartsLibrary);
+    buildStressSeries(sweeps);
+    buildDutySeries(sweeps);
+    buildLossStacks(c);
+    buildCostStacks(c);
+    buildWaveSeries(c, c.ranking[0]!, demoPartsLibrary);
+    if (r >= 3) times.push(performance.now() - t0);
+  }
+  times.sort((x, y) => x - y);
+  return { bestMs: times[0]!, medianMs: times[times.length >> 1]! };
+}
+const charts = chartDataFigure();
+
 const fmt = (x: number): string => Math.round(x).toLocaleString('en-US');
 const pct = (x: number): string => `${Math.round(100 * x)} %`;
 const tail = (r: Rate): string => `CPU share ${pct(r.cpuShare)}; checksum ${r.checksum.toExponential(6)}`;
@@ -123,3 +146,4 @@ console.log(`lean path:       ${fmt(lean.perS)} scheme-evaluations/s (target ≥
 console.log(`full evaluation: ${fmt(full.perS * nK)} scheme-evaluations/s (target ≥ 200,000; ${fmt(full.perS)} comparisons of ${nK} schemes/s; ${tail(full)})`);
 console.log(`lean, each spec from its own parseSpecInput call: ${fmt(leanParsed.perS)} scheme-evaluations/s (${tail(leanParsed)})`);
 console.log(`sweep loop (Sweep screen, shared front stages): ${fmt(sweep.points)} design points in ${sweep.bestMs.toFixed(0)} ms on one thread, ${fmt((1000 * sweep.points) / sweep.bestMs)} points/s (best of 5 after 3 warm-up runs; checksum ${sweep.checksum.toExponential(6)})`);
+console.log(`Compare chart data, every chart for ${nK} schemes: median ${charts.medianMs.toFixed(1)} ms, best ${charts.bestMs.toFixed(1)} ms (20 runs after 3 warm-up; budget of a live edit 20 ms)`);
